@@ -1,0 +1,94 @@
+import express from 'express'
+import session from 'express-session'
+import connectPgSimple from 'connect-pg-simple'
+import helmet from 'helmet'
+import { pinoHttp } from 'pino-http'
+import type pg from 'pg'
+import { existsSync } from 'node:fs'
+import { fileURLToPath } from 'node:url'
+import type { Db } from './db/client'
+import type { Env } from './env'
+import type { Logger } from './logger'
+import { createPassport } from './auth/passport'
+import { requireCsrfToken } from './auth/csrf'
+import { loadProject, requireSignedIn } from './auth/guards'
+import { errorHandler, notFoundHandler } from './http/error-handler'
+import { authRouter } from './routes/auth'
+import { healthRouter } from './routes/health'
+import { projectRouter, projectsRouter } from './routes/projects'
+import { usersRouter } from './routes/users'
+
+export interface AppDeps {
+  db: Db
+  pool: pg.Pool
+  env: Env
+  logger: Logger
+}
+
+const distDir = fileURLToPath(new URL('../../frontend/dist', import.meta.url))
+
+/** Builds the Express app (no listen): security → body → session/auth → routers → errors. */
+export function createApp({ db, pool, env, logger }: AppDeps) {
+  const app = express()
+  const passport = createPassport(db)
+  const PgStore = connectPgSimple(session)
+  const store = new PgStore({
+    pool,
+    tableName: 'sessions',
+    createTableIfMissing: false,
+    pruneSessionInterval: env.NODE_ENV === 'test' ? false : 15 * 60,
+  })
+  if (env.TRUST_PROXY) app.set('trust proxy', 1)
+  app.disable('x-powered-by')
+
+  // security
+  app.use(
+    helmet({ contentSecurityPolicy: { directives: { 'img-src': ["'self'", 'data:', 'blob:'] } } }),
+  )
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      serializers: {
+        req: (req: { method: string; url: string }) => ({ method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
+    }),
+  )
+  // body
+  app.use('/api', express.json({ limit: '5mb' }))
+  // session and auth
+  app.use(
+    '/api',
+    session({
+      store,
+      name: 'downdip.sid',
+      secret: env.SESSION_SECRET,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: env.TRUST_PROXY ? 'auto' : false,
+        maxAge: 12 * 60 * 60 * 1000,
+      },
+    }),
+  )
+  app.use('/api', passport.session())
+  app.use('/api', requireCsrfToken)
+  // routers
+  app.use('/api/health', healthRouter(db))
+  app.use('/api/auth', authRouter(db, passport, env.LOGIN_ATTEMPTS_PER_WINDOW))
+  app.use('/api/users', usersRouter(db))
+  app.use('/api/projects', requireSignedIn, projectsRouter(db))
+  app.use('/api/projects/:projectId', loadProject(db), projectRouter(db))
+  app.use('/api', notFoundHandler)
+  // the built app, with history-mode fallback
+  if (existsSync(distDir)) {
+    app.use(express.static(distDir, { index: false, maxAge: '1h' }))
+    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile('index.html', { root: distDir }))
+  }
+  app.use(errorHandler(logger))
+  return app
+}

@@ -1,0 +1,95 @@
+import { and, eq } from 'drizzle-orm'
+import { holes, memberships, projects, surveyStations, users } from '../../../schema/index'
+import { hashPassword } from '../auth/passport'
+import { stationRow } from '../services/survey'
+import { declinationFor } from '../services/declination'
+import type { Db, Tx } from './client'
+import { DEMO_PASSWORD, demoHoles, demoProject, demoUsers, type DemoHole } from './demo-data'
+import { seedOf, seededRandom } from './random'
+
+/**
+ * Seeds the demo idempotently: rows that exist (by e-mail, project code, hole name) are left as
+ * they are, so a second run duplicates nothing and keeps what people changed.
+ */
+export async function seedDemo(db: Db): Promise<void> {
+  const passwordHash = await hashPassword(DEMO_PASSWORD)
+  await db.transaction(async (tx) => {
+    await tx
+      .insert(users)
+      .values(
+        demoUsers.map((u) => ({ email: u.email, name: u.name, isAdmin: u.isAdmin, passwordHash })),
+      )
+      .onConflictDoNothing({ target: users.email })
+    await tx.insert(projects).values(demoProject).onConflictDoNothing({ target: projects.code })
+    const [project] = await tx.select().from(projects).where(eq(projects.code, demoProject.code))
+    for (const u of demoUsers) {
+      if (!u.role) continue
+      const [user] = await tx.select({ id: users.id }).from(users).where(eq(users.email, u.email))
+      await tx
+        .insert(memberships)
+        .values({ projectId: project.id, userId: user.id, role: u.role })
+        .onConflictDoNothing()
+    }
+    for (const demo of demoHoles) {
+      const inserted = await tx
+        .insert(holes)
+        .values({
+          projectId: project.id,
+          name: demo.name,
+          collarEast: demo.collarEast,
+          collarNorth: demo.collarNorth,
+          collarElevation: demo.collarElevation,
+          plannedAzimuth: demo.plannedAzimuth,
+          plannedPlunge: demo.plannedPlunge,
+          finalDepth: demo.finalDepth,
+          coreSize: 'HQ3',
+          startDate: demo.startDate,
+          status: 'complete',
+        })
+        .onConflictDoNothing()
+        .returning()
+      // Only a hole created now gets its demo survey: an existing hole keeps its own.
+      if (inserted.length === 1) await seedSurvey(tx, project, inserted[0], demo)
+    }
+  })
+}
+
+async function seedSurvey(
+  tx: Tx,
+  project: typeof projects.$inferSelect,
+  hole: typeof holes.$inferSelect,
+  demo: DemoHole,
+) {
+  const random = seededRandom(seedOf(demo.name))
+  const stations = []
+  for (let depth = 0; depth <= demo.finalDepth; depth += 30) {
+    const trueAzimuth = demo.plannedAzimuth + demo.azimuthDrift * depth + (random() - 0.5) * 0.6
+    const plunge = Math.min(
+      89.5,
+      demo.plannedPlunge + demo.plungeDrift * depth + (random() - 0.5) * 0.4,
+    )
+    stations.push({ depth, trueAzimuth, plunge: Math.round(plunge * 100) / 100 })
+  }
+  const method = demo.surveyReference === 'magnetic' ? 'multishot magnetic' : 'gyro'
+  const declination =
+    demo.surveyReference === 'magnetic'
+      ? declinationFor(project, hole, new Date(demo.startDate))
+      : 0
+  // A magnetic tool reads true − declination: enter that, and let the server correct it back.
+  const rows = stations.map((s) => ({
+    ...stationRow(project, hole, {
+      depth: s.depth,
+      azimuth: Math.round(((((s.trueAzimuth - declination) % 360) + 360) % 360) * 100) / 100,
+      plunge: s.plunge,
+      azimuthReference: demo.surveyReference,
+      method,
+      surveyedOn: demo.startDate,
+    }),
+    holeId: hole.id,
+  }))
+  await tx.insert(surveyStations).values(rows)
+  await tx
+    .update(holes)
+    .set({ surveyRevision: 1 })
+    .where(and(eq(holes.id, hole.id), eq(holes.projectId, project.id)))
+}

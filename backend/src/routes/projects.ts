@@ -1,0 +1,103 @@
+import { Router } from 'express'
+import {
+  IdParam,
+  MemberAddBody,
+  MemberUpdateBody,
+  ProjectCreateBody,
+  ProjectUpdateBody,
+} from '../../../schema/index'
+import type { Db } from '../db/client'
+import { projectLocals, requireAdmin, requireRole } from '../auth/guards'
+import { inputOf, validate } from '../http/validate'
+import { holesRouter } from './holes'
+import {
+  addMember,
+  changeMember,
+  createProject,
+  listMembers,
+  listProjectsFor,
+  updateProject,
+} from '../services/projects'
+
+/** /api/projects: list and create (admin). */
+export function projectsRouter(db: Db): Router {
+  const router = Router()
+  router.get('/', async (req, res) => {
+    res.json({ data: await listProjectsFor(db, req.user!) })
+  })
+  router.post('/', requireAdmin, validate({ body: ProjectCreateBody }), async (req, res) => {
+    const { body } = inputOf(res, { body: ProjectCreateBody })
+    res
+      .status(201)
+      .json({ data: { ...(await createProject(db, req.user!.id, body)), role: 'lead' } })
+  })
+  return router
+}
+
+const MemberParams = IdParam('userId')
+
+/** /api/projects/:projectId (after loadProject): settings, members, and the holes below. */
+export function projectRouter(db: Db): Router {
+  const router = Router({ mergeParams: true })
+  router.use('/holes', holesRouter(db))
+  router.get('/', (_req, res) => {
+    const { project, role } = projectLocals(res)
+    res.json({ data: { ...project, role } })
+  })
+  router.patch(
+    '/',
+    requireRole('lead'),
+    validate({ body: ProjectUpdateBody }),
+    async (req, res) => {
+      const { project, role } = projectLocals(res)
+      const { body } = inputOf(res, { body: ProjectUpdateBody })
+      res.json({ data: { ...(await updateProject(db, req.user!.id, project, body)), role } })
+    },
+  )
+  router.get('/members', async (_req, res) => {
+    res.json({ data: await listMembers(db, projectLocals(res).project.id) })
+  })
+  router.post(
+    '/members',
+    requireRole('lead'),
+    validate({ body: MemberAddBody }),
+    async (req, res) => {
+      const { body } = inputOf(res, { body: MemberAddBody })
+      const member = await addMember(
+        db,
+        req.user!.id,
+        projectLocals(res).project.id,
+        body.email,
+        body.role,
+      )
+      res.status(201).json({ data: member })
+    },
+  )
+  router.patch(
+    '/members/:userId',
+    requireRole('lead'),
+    validate({ params: MemberParams, body: MemberUpdateBody }),
+    async (req, res) => {
+      const { params, body } = inputOf(res, { params: MemberParams, body: MemberUpdateBody })
+      const row = await changeMember(
+        db,
+        req.user!.id,
+        projectLocals(res).project.id,
+        params.userId,
+        body.role,
+      )
+      res.json({ data: row })
+    },
+  )
+  router.delete(
+    '/members/:userId',
+    requireRole('lead'),
+    validate({ params: MemberParams }),
+    async (req, res) => {
+      const { params } = inputOf(res, { params: MemberParams })
+      await changeMember(db, req.user!.id, projectLocals(res).project.id, params.userId, null)
+      res.status(204).end()
+    },
+  )
+  return router
+}

@@ -1,0 +1,34 @@
+import { createApp } from './app'
+import { createDb } from './db/client'
+import { loadEnv } from './env'
+import { createLogger } from './logger'
+
+const env = loadEnv()
+const logger = createLogger(env.LOG_LEVEL)
+const { db, pool } = createDb(env.DATABASE_URL)
+const app = createApp({ db, pool, env, logger })
+
+const server = app.listen(env.PORT, env.HOST, () => {
+  const url = `http://${env.HOST}:${env.PORT}`
+  logger.info({ url }, 'Downdip is serving')
+  console.log(`\n  Downdip: ${url}\n`)
+  console.log('  Demo accounts (password downdip-demo):')
+  for (const who of ['admin', 'lead', 'engineer', 'logger', 'viewer']) {
+    console.log(`    ${who.padEnd(9)} ${who}@greyscar.test`)
+  }
+  console.log('')
+})
+
+let stopping = false
+function shutdown(signal: string) {
+  if (stopping) return
+  stopping = true
+  logger.info({ signal }, 'stopping')
+  server.close(() => {
+    pool.end().finally(() => process.exit(0))
+  })
+  server.closeAllConnections()
+  setTimeout(() => process.exit(1), 10_000).unref()
+}
+process.on('SIGINT', () => shutdown('SIGINT'))
+process.on('SIGTERM', () => shutdown('SIGTERM'))

@@ -1,0 +1,65 @@
+import { magneticDeclination, toTrueAzimuth } from '../../../orient/index'
+import type { Hole, Project } from '../../../schema/index'
+import { badRequest } from '../http/errors'
+import { crsDefinition, toLatLon } from './crs'
+
+type DeclinationSettings = Pick<Project, 'declinationMode' | 'crsEpsg'>
+
+/** Auto declination needs a CRS we can place on the globe: refuse settings that cannot work. */
+export function checkDeclinationSettings(p: Partial<DeclinationSettings>): void {
+  if (p.declinationMode === 'auto' && p.crsEpsg !== undefined && !crsDefinition(p.crsEpsg)) {
+    throw badRequest(
+      'Automatic declination needs a CRS Downdip can convert to latitude/longitude',
+      [
+        {
+          path: 'body.crsEpsg',
+          message: `EPSG:${p.crsEpsg} is not supported for automatic declination; use WGS 84 / UTM, ETRS89 / UTM, NAD83 / UTM, GDA94 or GDA2020 / MGA, OSGB 1936 (27700), NZTM (2193), or set a manual declination`,
+        },
+      ],
+    )
+  }
+}
+
+/**
+ * Magnetic declination in degrees (east positive) for a hole on a date: the project's manual
+ * value, or the World Magnetic Model at the collar.
+ */
+export function declinationFor(
+  project: Project,
+  hole: Pick<Hole, 'collarEast' | 'collarNorth' | 'collarElevation'>,
+  date: Date,
+): number {
+  if (project.declinationMode === 'manual') return project.declinationDeg
+  const place = toLatLon(project.crsEpsg, hole.collarEast, hole.collarNorth)
+  if (!place) return project.declinationDeg
+  return magneticDeclination({ ...place, date, heightKm: hole.collarElevation / 1000 })
+}
+
+export const normaliseAzimuth = (a: number) => ((a % 360) + 360) % 360
+
+/**
+ * A station azimuth as entered → true-north azimuth, with what was applied.
+ * true = magnetic + declination; true = grid + convergence (grid = true − convergence).
+ */
+export function azimuthToTrue(
+  entered: number,
+  reference: 'magnetic' | 'true' | 'grid',
+  declination: number,
+  convergence: number,
+) {
+  if (reference === 'magnetic') {
+    return {
+      azimuth: normaliseAzimuth(toTrueAzimuth(entered, declination)),
+      declinationApplied: declination,
+      convergenceApplied: 0,
+    }
+  }
+  if (reference === 'grid') {
+    return {
+      azimuth: normaliseAzimuth(entered + convergence),
+      declinationApplied: 0,
+      convergenceApplied: convergence,
+    }
+  }
+  return { azimuth: normaliseAzimuth(entered), declinationApplied: 0, convergenceApplied: 0 }
+}

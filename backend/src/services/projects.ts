@@ -1,0 +1,157 @@
+import { and, eq } from 'drizzle-orm'
+import {
+  memberships,
+  projects,
+  users,
+  type Project,
+  type ProjectCreate,
+  type ProjectRole,
+  type ProjectUpdate,
+} from '../../../schema/index'
+import type { Db } from '../db/client'
+import { badRequest, notFound, staleVersion } from '../http/errors'
+import { audit } from './audit'
+import { checkDeclinationSettings } from './declination'
+
+export async function listProjectsFor(db: Db, user: Express.User) {
+  if (user.isAdmin) {
+    const rows = await db.select().from(projects).orderBy(projects.code)
+    return rows.map((p) => ({ ...p, role: 'lead' as ProjectRole }))
+  }
+  const rows = await db
+    .select({ project: projects, role: memberships.role })
+    .from(memberships)
+    .innerJoin(projects, eq(projects.id, memberships.projectId))
+    .where(eq(memberships.userId, user.id))
+    .orderBy(projects.code)
+  return rows.map((r) => ({ ...r.project, role: r.role }))
+}
+
+/** Admin creates a project and names its lead, in one audited transaction. */
+export async function createProject(
+  db: Db,
+  actorId: number,
+  input: ProjectCreate,
+): Promise<Project> {
+  const { leadUserId, ...fields } = input
+  checkDeclinationSettings(fields)
+  return db.transaction(async (tx) => {
+    const [lead] = await tx.select({ id: users.id }).from(users).where(eq(users.id, leadUserId))
+    if (!lead)
+      throw badRequest('No such user', [{ path: 'body.leadUserId', message: 'no such user' }])
+    const [project] = await tx.insert(projects).values(fields).returning()
+    await tx.insert(memberships).values({ projectId: project.id, userId: leadUserId, role: 'lead' })
+    await audit(tx, {
+      projectId: project.id,
+      userId: actorId,
+      entity: 'project',
+      entityId: project.id,
+      action: 'create',
+      after: { ...project, leadUserId },
+    })
+    return project
+  })
+}
+
+/** Lead edits settings; a stale `version` → 409. */
+export async function updateProject(
+  db: Db,
+  actorId: number,
+  project: Project,
+  input: ProjectUpdate,
+): Promise<Project> {
+  const { version, ...fields } = input
+  checkDeclinationSettings({ ...project, ...fields })
+  return db.transaction(async (tx) => {
+    const [after] = await tx
+      .update(projects)
+      .set({ ...fields, version: version + 1, updatedAt: new Date() })
+      .where(and(eq(projects.id, project.id), eq(projects.version, version)))
+      .returning()
+    if (!after) throw staleVersion()
+    await audit(tx, {
+      projectId: project.id,
+      userId: actorId,
+      entity: 'project',
+      entityId: project.id,
+      action: 'update',
+      before: project,
+      after,
+    })
+    return after
+  })
+}
+
+export async function listMembers(db: Db, projectId: number) {
+  return db
+    .select({ userId: users.id, email: users.email, name: users.name, role: memberships.role })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.projectId, projectId))
+    .orderBy(users.name)
+}
+
+export async function addMember(
+  db: Db,
+  actorId: number,
+  projectId: number,
+  email: string,
+  role: ProjectRole,
+) {
+  return db.transaction(async (tx) => {
+    const [user] = await tx.select().from(users).where(eq(users.email, email.toLowerCase()))
+    if (!user) {
+      throw badRequest('No user with that e-mail', [
+        { path: 'body.email', message: 'no such user' },
+      ])
+    }
+    const [row] = await tx
+      .insert(memberships)
+      .values({ projectId, userId: user.id, role })
+      .returning()
+    await audit(tx, {
+      projectId,
+      userId: actorId,
+      entity: 'membership',
+      entityId: user.id,
+      action: 'create',
+      after: row,
+    })
+    return { userId: user.id, email: user.email, name: user.name, role: row.role }
+  })
+}
+
+export async function changeMember(
+  db: Db,
+  actorId: number,
+  projectId: number,
+  userId: number,
+  role: ProjectRole | null,
+) {
+  return db.transaction(async (tx) => {
+    const where = and(eq(memberships.projectId, projectId), eq(memberships.userId, userId))
+    const [before] = await tx.select().from(memberships).where(where)
+    if (!before) throw notFound('Member')
+    if (before.role === 'lead' && role !== 'lead') {
+      const leads = await tx
+        .select({ userId: memberships.userId })
+        .from(memberships)
+        .where(and(eq(memberships.projectId, projectId), eq(memberships.role, 'lead')))
+      if (leads.length === 1)
+        throw badRequest('A project keeps at least one lead.', [], 'last_lead')
+    }
+    const [after] = role
+      ? await tx.update(memberships).set({ role }).where(where).returning()
+      : await tx.delete(memberships).where(where).returning()
+    await audit(tx, {
+      projectId,
+      userId: actorId,
+      entity: 'membership',
+      entityId: userId,
+      action: role ? 'update' : 'delete',
+      before,
+      after: role ? after : null,
+    })
+    return role ? after : null
+  })
+}

@@ -1,0 +1,171 @@
+import { and, asc, eq, sql } from 'drizzle-orm'
+import {
+  holes,
+  surveyStations,
+  type Hole,
+  type Project,
+  type StationInputT,
+  type SurveyStation,
+} from '../../../schema/index'
+import type { Db, Tx } from '../db/client'
+import { notFound, staleVersion } from '../http/errors'
+import { audit } from './audit'
+import { azimuthToTrue, declinationFor } from './declination'
+
+export const listStations = (db: Db | Tx, holeId: number) =>
+  db
+    .select()
+    .from(surveyStations)
+    .where(eq(surveyStations.holeId, holeId))
+    .orderBy(asc(surveyStations.depth))
+
+type StationFields = Omit<typeof surveyStations.$inferInsert, 'holeId'>
+
+/** Entered values → stored row: azimuth corrected to true north, the correction recorded. */
+export function stationRow(project: Project, hole: Hole, input: StationInputT): StationFields {
+  const reference = input.azimuthReference ?? 'true'
+  const date = input.surveyedOn
+    ? new Date(input.surveyedOn)
+    : hole.startDate
+      ? new Date(hole.startDate)
+      : new Date()
+  const declination = reference === 'magnetic' ? declinationFor(project, hole, date) : 0
+  const corrected = azimuthToTrue(input.azimuth, reference, declination, project.gridConvergenceDeg)
+  return {
+    depth: input.depth,
+    plunge: input.plunge,
+    azimuthEntered: input.azimuth,
+    azimuthReference: reference,
+    method: input.method ?? '',
+    surveyedOn: input.surveyedOn ?? null,
+    ...corrected,
+  }
+}
+
+/** Run in the same transaction after any survey change: the hole's survey revision goes up. */
+async function afterSurveyChange(tx: Tx, _project: Project, hole: Hole, _actorId: number) {
+  await tx
+    .update(holes)
+    .set({ surveyRevision: sql`${holes.surveyRevision} + 1` })
+    .where(eq(holes.id, hole.id))
+}
+
+export async function replaceSurvey(
+  db: Db,
+  actorId: number,
+  project: Project,
+  hole: Hole,
+  stations: StationInputT[],
+): Promise<SurveyStation[]> {
+  return db.transaction(async (tx) => {
+    const before = await listStations(tx, hole.id)
+    await tx.delete(surveyStations).where(eq(surveyStations.holeId, hole.id))
+    if (stations.length > 0) {
+      await tx
+        .insert(surveyStations)
+        .values(stations.map((s) => ({ ...stationRow(project, hole, s), holeId: hole.id })))
+    }
+    const after = await listStations(tx, hole.id)
+    await afterSurveyChange(tx, project, hole, actorId)
+    await audit(tx, {
+      projectId: project.id,
+      userId: actorId,
+      entity: 'survey',
+      entityId: hole.id,
+      action: 'replace',
+      before,
+      after,
+    })
+    return after
+  })
+}
+
+export async function addStation(
+  db: Db,
+  actorId: number,
+  project: Project,
+  hole: Hole,
+  input: StationInputT,
+) {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .insert(surveyStations)
+      .values({ ...stationRow(project, hole, input), holeId: hole.id })
+      .returning()
+    await afterSurveyChange(tx, project, hole, actorId)
+    await audit(tx, {
+      projectId: project.id,
+      userId: actorId,
+      entity: 'survey_station',
+      entityId: row.id,
+      action: 'create',
+      after: row,
+    })
+    return row
+  })
+}
+
+export async function updateStation(
+  db: Db,
+  actorId: number,
+  project: Project,
+  hole: Hole,
+  stationId: number,
+  input: Partial<StationInputT> & { version: number },
+) {
+  return db.transaction(async (tx) => {
+    const where = and(eq(surveyStations.id, stationId), eq(surveyStations.holeId, hole.id))
+    const [before] = await tx.select().from(surveyStations).where(where)
+    if (!before) throw notFound('Survey station')
+    const merged: StationInputT = {
+      depth: input.depth ?? before.depth,
+      azimuth: input.azimuth ?? before.azimuthEntered,
+      plunge: input.plunge ?? before.plunge,
+      azimuthReference: input.azimuthReference ?? before.azimuthReference,
+      method: input.method ?? before.method,
+      surveyedOn: input.surveyedOn !== undefined ? input.surveyedOn : before.surveyedOn,
+    }
+    const [after] = await tx
+      .update(surveyStations)
+      .set({ ...stationRow(project, hole, merged), version: input.version + 1 })
+      .where(and(where, eq(surveyStations.version, input.version)))
+      .returning()
+    if (!after) throw staleVersion()
+    await afterSurveyChange(tx, project, hole, actorId)
+    await audit(tx, {
+      projectId: project.id,
+      userId: actorId,
+      entity: 'survey_station',
+      entityId: stationId,
+      action: 'update',
+      before,
+      after,
+    })
+    return after
+  })
+}
+
+export async function deleteStation(
+  db: Db,
+  actorId: number,
+  project: Project,
+  hole: Hole,
+  stationId: number,
+) {
+  await db.transaction(async (tx) => {
+    const [before] = await tx
+      .delete(surveyStations)
+      .where(and(eq(surveyStations.id, stationId), eq(surveyStations.holeId, hole.id)))
+      .returning()
+    if (!before) throw notFound('Survey station')
+    await afterSurveyChange(tx, project, hole, actorId)
+    await audit(tx, {
+      projectId: project.id,
+      userId: actorId,
+      entity: 'survey_station',
+      entityId: stationId,
+      action: 'delete',
+      before,
+    })
+  })
+}

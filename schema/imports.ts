@@ -1,0 +1,50 @@
+import {
+  customType,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uuid,
+} from 'drizzle-orm/pg-core'
+import { holes } from './holes'
+import { projects } from './projects'
+import { users } from './users'
+
+const bytea = customType<{ data: Buffer }>({ dataType: () => 'bytea' })
+
+export const importKinds = ['survey', 'runs', 'structures', 'picks', 'las'] as const
+export const importStatuses = ['previewed', 'queued', 'committing', 'committed', 'failed'] as const
+export const importKind = pgEnum('import_kind', importKinds)
+export const importStatus = pgEnum('import_status', importStatuses)
+
+/** An uploaded file on its way in: kept for audit, previewed, then committed all-or-nothing. */
+export const imports = pgTable(
+  'imports',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    projectId: integer('project_id')
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    holeId: integer('hole_id').references(() => holes.id, { onDelete: 'cascade' }),
+    kind: importKind('kind').notNull(),
+    status: importStatus('status').notNull().default('previewed'),
+    fileName: text('file_name').notNull(),
+    file: bytea('file').notNull(),
+    options: jsonb('options').notNull().default({}),
+    rowCount: integer('row_count').notNull().default(0),
+    errorCount: integer('error_count').notNull().default(0),
+    /** First errors found (row, column, reason); the full list is recomputed on demand. */
+    errors: jsonb('errors').notNull().default([]),
+    progress: integer('progress').notNull().default(0),
+    message: text('message').notNull().default(''),
+    createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    committedAt: timestamp('committed_at', { withTimezone: true }),
+  },
+  (t) => [index('imports_project_idx').on(t.projectId, t.createdAt)],
+)
+
+export type Import = typeof imports.$inferSelect

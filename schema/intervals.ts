@@ -1,0 +1,89 @@
+import {
+  doublePrecision,
+  integer,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  serial,
+  text,
+  timestamp,
+  unique,
+  check,
+} from 'drizzle-orm/pg-core'
+import { sql } from 'drizzle-orm'
+import { holes } from './holes'
+import { projects } from './projects'
+import { structures } from './logging'
+
+export const intervalStatuses = ['draft', 'checked', 'approved', 'issued'] as const
+export const intervalStatus = pgEnum('interval_status', intervalStatuses)
+export const setRules = ['cone', 'cluster'] as const
+export const setRule = pgEnum('set_rule', setRules)
+
+/** A structural/geotechnical domain gathering intervals across holes. */
+export const domains = pgTable(
+  'domains',
+  {
+    id: serial('id').primaryKey(),
+    projectId: integer('project_id')
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    name: text('name').notNull(),
+    description: text('description').notNull().default(''),
+  },
+  (t) => [unique('domains_project_name_unique').on(t.projectId, t.name)],
+)
+
+/** A depth interval [fromDepth, toDepth) of one hole; intervals of a hole never overlap. */
+export const intervals = pgTable(
+  'intervals',
+  {
+    id: serial('id').primaryKey(),
+    holeId: integer('hole_id')
+      .notNull()
+      .references(() => holes.id, { onDelete: 'cascade' }),
+    domainId: integer('domain_id').references(() => domains.id, { onDelete: 'set null' }),
+    name: text('name').notNull(),
+    fromDepth: doublePrecision('from_depth').notNull(),
+    toDepth: doublePrecision('to_depth').notNull(),
+    status: intervalStatus('status').notNull().default('draft'),
+    faceDip: doublePrecision('face_dip'),
+    faceDipDirection: doublePrecision('face_dip_direction'),
+    frictionDeg: doublePrecision('friction_deg'),
+    version: integer('version').notNull().default(1),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [check('intervals_order', sql`${t.toDepth} > ${t.fromDepth}`)],
+)
+
+/** A joint set within an interval: by cone about a centre, or by clustering with explicit members. */
+export const structureSets = pgTable('structure_sets', {
+  id: serial('id').primaryKey(),
+  intervalId: integer('interval_id')
+    .notNull()
+    .references(() => intervals.id, { onDelete: 'cascade' }),
+  name: text('name').notNull(),
+  rule: setRule('rule').notNull().default('cone'),
+  centreTrend: doublePrecision('centre_trend').notNull(),
+  centrePlunge: doublePrecision('centre_plunge').notNull(),
+  coneAngle: doublePrecision('cone_angle').notNull().default(20),
+  version: integer('version').notNull().default(1),
+})
+
+export const setMembers = pgTable(
+  'set_members',
+  {
+    setId: integer('set_id')
+      .notNull()
+      .references(() => structureSets.id, { onDelete: 'cascade' }),
+    structureId: integer('structure_id')
+      .notNull()
+      .references(() => structures.id, { onDelete: 'cascade' }),
+  },
+  (t) => [primaryKey({ columns: [t.setId, t.structureId] })],
+)
+
+export type Domain = typeof domains.$inferSelect
+export type Interval = typeof intervals.$inferSelect
+export type StructureSet = typeof structureSets.$inferSelect

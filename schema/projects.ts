@@ -1,0 +1,62 @@
+import {
+  doublePrecision,
+  integer,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  serial,
+  text,
+  timestamp,
+} from 'drizzle-orm/pg-core'
+import { users } from './users'
+
+export const declinationModes = ['auto', 'manual'] as const
+export const referenceLines = ['bottom', 'top'] as const
+export const netProjections = ['equal-area', 'equal-angle'] as const
+/** Lowest to highest; a global admin counts as lead in every project. */
+export const projectRoles = ['viewer', 'logger', 'engineer', 'lead'] as const
+export type ProjectRole = (typeof projectRoles)[number]
+
+export const declinationMode = pgEnum('declination_mode', declinationModes)
+export const referenceLine = pgEnum('reference_line', referenceLines)
+export const netProjection = pgEnum('net_projection', netProjections)
+export const projectRole = pgEnum('project_role', projectRoles)
+
+export const projects = pgTable('projects', {
+  id: serial('id').primaryKey(),
+  code: text('code').notNull().unique(),
+  name: text('name').notNull(),
+  /** Site coordinate reference system of collar coordinates, as an EPSG code. */
+  crsEpsg: integer('crs_epsg').notNull(),
+  declinationMode: declinationMode('declination_mode').notNull().default('manual'),
+  /** Magnetic declination in degrees, east positive; used when the mode is manual. */
+  declinationDeg: doublePrecision('declination_deg').notNull().default(0),
+  /** Grid convergence in degrees: grid azimuth = true azimuth − convergence. */
+  gridConvergenceDeg: doublePrecision('grid_convergence_deg').notNull().default(0),
+  referenceLine: referenceLine('reference_line').notNull().default('bottom'),
+  /** Hole plunge (degrees below horizontal) above which core orientation is flagged unreliable. */
+  steepThresholdDeg: doublePrecision('steep_threshold_deg').notNull().default(85),
+  netProjection: netProjection('net_projection').notNull().default('equal-area'),
+  version: integer('version').notNull().default(1),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+})
+
+export const memberships = pgTable(
+  'memberships',
+  {
+    projectId: integer('project_id')
+      .notNull()
+      .references(() => projects.id, { onDelete: 'cascade' }),
+    userId: integer('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    role: projectRole('role').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.projectId, t.userId] })],
+)
+
+export type Project = typeof projects.$inferSelect
+export type NewProject = typeof projects.$inferInsert
+export type Membership = typeof memberships.$inferSelect

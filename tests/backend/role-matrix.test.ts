@@ -1,0 +1,294 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { eq } from 'drizzle-orm'
+import { holes, memberships, projects, surveyStations, users } from '../../schema/index'
+import {
+  actors,
+  clientFor,
+  createFixture,
+  holeValues,
+  type Actor,
+  type Client,
+  type Fixture,
+} from './fixture'
+
+type Need = 'public' | 'signed-in' | 'admin' | 'viewer' | 'logger' | 'engineer' | 'lead'
+interface RouteCase {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete'
+  route: string
+  need: Need
+  ok: number
+  /** Makes a fresh target for each caller: the path to call and the body to send. */
+  prepare: (fx: Fixture) => Promise<{ path: string; body?: object }>
+}
+
+const rank: Record<string, number> = { viewer: 0, logger: 1, engineer: 2, lead: 3 }
+let n = 0
+const unique = () => ++n
+
+/** The status each caller must get: 401 signed out, 404 outside the project, 403 too low a role. */
+function expected(c: RouteCase, who: Actor | 'anonymous'): number {
+  if (c.need === 'public') return c.ok
+  if (who === 'anonymous') return 401
+  if (c.need === 'signed-in') return c.ok
+  if (c.need === 'admin') return who === 'admin' ? c.ok : 403
+  if (who === 'admin') return c.ok
+  if (who === 'outsider') return 404
+  return rank[who] >= rank[c.need] ? c.ok : 403
+}
+
+const P = (fx: Fixture) => `/api/projects/${fx.projectId}`
+const H = (fx: Fixture) => `${P(fx)}/holes/${fx.holeId}`
+const freshUser = async (fx: Fixture) => {
+  const [u] = await fx.db
+    .insert(users)
+    .values({ email: `fresh${unique()}@test.example`, name: 'Fresh', passwordHash: 'x' })
+    .returning()
+  return u
+}
+const freshMember = async (fx: Fixture) => {
+  const u = await freshUser(fx)
+  await fx.db.insert(memberships).values({ projectId: fx.projectId, userId: u.id, role: 'viewer' })
+  return u
+}
+const freshStation = async (fx: Fixture) => {
+  const [s] = await fx.db
+    .insert(surveyStations)
+    .values({
+      holeId: fx.holeId,
+      depth: 1000 + unique(),
+      azimuth: 10,
+      azimuthEntered: 10,
+      plunge: 60,
+    })
+    .returning()
+  return s
+}
+const station = () => ({ depth: 500 + unique(), azimuth: 12, plunge: 58, azimuthReference: 'true' })
+
+const cases: RouteCase[] = [
+  {
+    method: 'get',
+    route: '/api/health',
+    need: 'public',
+    ok: 200,
+    prepare: async () => ({ path: '/api/health' }),
+  },
+  {
+    method: 'get',
+    route: '/api/auth/me',
+    need: 'signed-in',
+    ok: 200,
+    prepare: async () => ({ path: '/api/auth/me' }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects',
+    need: 'signed-in',
+    ok: 200,
+    prepare: async () => ({ path: '/api/projects' }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects',
+    need: 'admin',
+    ok: 201,
+    prepare: async (fx) => ({
+      path: '/api/projects',
+      body: { code: `NEW${unique()}`, name: 'New', crsEpsg: 32630, leadUserId: fx.userIds.lead },
+    }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: P(fx) }),
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId',
+    need: 'lead',
+    ok: 200,
+    prepare: async (fx) => {
+      const [p] = await fx.db.select().from(projects).where(eq(projects.id, fx.projectId))
+      return { path: P(fx), body: { version: p.version, name: `Renamed ${unique()}` } }
+    },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/members',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${P(fx)}/members` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/members',
+    need: 'lead',
+    ok: 201,
+    prepare: async (fx) => ({
+      path: `${P(fx)}/members`,
+      body: { email: (await freshUser(fx)).email, role: 'viewer' },
+    }),
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/members/:userId',
+    need: 'lead',
+    ok: 200,
+    prepare: async (fx) => ({
+      path: `${P(fx)}/members/${(await freshMember(fx)).id}`,
+      body: { role: 'logger' },
+    }),
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/members/:userId',
+    need: 'lead',
+    ok: 204,
+    prepare: async (fx) => ({ path: `${P(fx)}/members/${(await freshMember(fx)).id}` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${P(fx)}/holes` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes',
+    need: 'logger',
+    ok: 201,
+    prepare: async (fx) => {
+      const { projectId: _p, ...body } = holeValues(fx.projectId, `NEW-${unique()}`)
+      return { path: `${P(fx)}/holes`, body }
+    },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: H(fx) }),
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/holes/:holeId',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => {
+      const [h] = await fx.db.select().from(holes).where(eq(holes.id, fx.holeId))
+      return { path: H(fx), body: { version: h.version, coreSize: `HQ${unique()}` } }
+    },
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId',
+    need: 'lead',
+    ok: 204,
+    prepare: async (fx) => {
+      const [h] = await fx.db
+        .insert(holes)
+        .values(holeValues(fx.projectId, `DEL-${unique()}`))
+        .returning()
+      return { path: `${P(fx)}/holes/${h.id}` }
+    },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/survey',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/survey` }),
+  },
+  {
+    method: 'put',
+    route: '/api/projects/:projectId/holes/:holeId/survey',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => ({
+      path: `${H(fx)}/survey`,
+      body: { stations: [station(), station()] },
+    }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/survey',
+    need: 'logger',
+    ok: 201,
+    prepare: async (fx) => ({ path: `${H(fx)}/survey`, body: station() }),
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/holes/:holeId/survey/:stationId',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => {
+      const s = await freshStation(fx)
+      return { path: `${H(fx)}/survey/${s.id}`, body: { version: s.version, plunge: 61 } }
+    },
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/survey/:stationId',
+    need: 'logger',
+    ok: 204,
+    prepare: async (fx) => ({ path: `${H(fx)}/survey/${(await freshStation(fx)).id}` }),
+  },
+  {
+    method: 'get',
+    route: '/api/users',
+    need: 'admin',
+    ok: 200,
+    prepare: async () => ({ path: '/api/users' }),
+  },
+  {
+    method: 'post',
+    route: '/api/users',
+    need: 'admin',
+    ok: 201,
+    prepare: async () => ({
+      path: '/api/users',
+      body: { email: `made${unique()}@test.example`, name: 'Made', password: 'long-enough-1' },
+    }),
+  },
+  {
+    method: 'patch',
+    route: '/api/users/:userId',
+    need: 'admin',
+    ok: 200,
+    prepare: async (fx) => {
+      const u = await freshUser(fx)
+      return { path: `/api/users/${u.id}`, body: { version: u.version, name: 'Renamed' } }
+    },
+  },
+]
+
+let fx: Fixture
+const clients = {} as Record<Actor | 'anonymous', Client>
+beforeAll(async () => {
+  fx = await createFixture()
+  for (const who of [...actors, 'anonymous'] as const) clients[who] = await clientFor(fx.app, who)
+})
+afterAll(() => fx.close())
+
+describe('role × route matrix', () => {
+  for (const c of cases) {
+    describe(`${c.method.toUpperCase()} ${c.route}`, () => {
+      for (const who of ['anonymous', ...actors] as const) {
+        const status = expected(c, who)
+        it(`${c.method.toUpperCase()} ${c.route} → ${status} for ${who}`, async () => {
+          const { path, body } = await c.prepare(fx)
+          const client = clients[who]
+          const res =
+            c.method === 'get' || c.method === 'delete'
+              ? await client[c.method](path)
+              : await client[c.method](path, body)
+          expect(res.status, JSON.stringify(res.body)).toBe(status)
+          if (res.status >= 400) expect(res.body.error.code).toBeTypeOf('string')
+        })
+      }
+    })
+  }
+})
