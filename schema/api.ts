@@ -19,6 +19,7 @@ export const ProjectCreateBody = createInsertSchema(projects, {
   declinationDeg: (s) => s.min(-90).max(90),
   gridConvergenceDeg: (s) => s.min(-10).max(10),
   steepThresholdDeg: (s) => s.min(45).max(90),
+  betaJumpDeg: (s) => s.min(5).max(180),
 })
   .pick({
     code: true,
@@ -30,6 +31,7 @@ export const ProjectCreateBody = createInsertSchema(projects, {
     referenceLine: true,
     steepThresholdDeg: true,
     netProjection: true,
+    betaJumpDeg: true,
   })
   .extend({ leadUserId: z.number().int().positive() })
   .strict()

@@ -37,6 +37,8 @@ export const projects = pgTable('projects', {
   /** Hole plunge (degrees below horizontal) above which core orientation is flagged unreliable. */
   steepThresholdDeg: doublePrecision('steep_threshold_deg').notNull().default(85),
   netProjection: netProjection('net_projection').notNull().default('equal-area'),
+  /** A beta differing by more than this from the previous structure of the same type in a run is flagged. */
+  betaJumpDeg: doublePrecision('beta_jump_deg').notNull().default(60),
   version: integer('version').notNull().default(1),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

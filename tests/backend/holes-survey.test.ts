@@ -114,7 +114,7 @@ describe('PUT /api/projects/:projectId/holes/:holeId/survey', () => {
       ],
     })
     const place = toLatLon(32630, 512000, 6012000)!
-    const expected = magneticDeclination({ ...place, date: new Date('2026-06-01'), heightKm: 0.2 })
+    const expected = magneticDeclination({ ...place, date: new Date('2026-06-01'), heightKm: 0.2 })!
     expect(res.body.data[0].declinationApplied).toBeCloseTo(expected, 9)
     expect(res.body.data[0].azimuth).toBeCloseTo(10 + expected, 9)
   })

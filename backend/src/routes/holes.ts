@@ -11,6 +11,9 @@ import type { Db } from '../db/client'
 import { projectLocals, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
 import { notFound } from '../http/errors'
+import { logsRouter } from './logs'
+import { runsRouter } from './runs'
+import { structuresRouter } from './structures'
 import { createHole, deleteHole, getHole, listHoles, updateHole } from '../services/holes'
 import {
   addStation,
@@ -33,6 +36,9 @@ export async function holeOf(db: Db, req: Request, res: Response) {
 /** /api/projects/:projectId/holes and each hole's survey. */
 export function holesRouter(db: Db): Router {
   const router = Router({ mergeParams: true })
+  router.use('/:holeId/logs', logsRouter(db))
+  router.use('/:holeId/runs', runsRouter(db))
+  router.use('/:holeId/structures', structuresRouter(db))
 
   router.get('/', async (_req, res) => {
     res.json({ data: await listHoles(db, projectLocals(res).project.id) })

@@ -32,7 +32,11 @@ export function declinationFor(
   if (project.declinationMode === 'manual') return project.declinationDeg
   const place = toLatLon(project.crsEpsg, hole.collarEast, hole.collarNorth)
   if (!place) return project.declinationDeg
-  return magneticDeclination({ ...place, date, heightKm: hole.collarElevation / 1000 })
+  // Outside every model's reach (an impossible place or date): fall back to the manual value.
+  return (
+    magneticDeclination({ ...place, date, heightKm: hole.collarElevation / 1000 }) ??
+    project.declinationDeg
+  )
 }
 
 export const normaliseAzimuth = (a: number) => ((a % 360) + 360) % 360
@@ -49,7 +53,7 @@ export function azimuthToTrue(
 ) {
   if (reference === 'magnetic') {
     return {
-      azimuth: normaliseAzimuth(toTrueAzimuth(entered, declination)),
+      azimuth: toTrueAzimuth(entered, declination) ?? normaliseAzimuth(entered),
       declinationApplied: declination,
       convergenceApplied: 0,
     }

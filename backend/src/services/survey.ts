@@ -11,6 +11,7 @@ import type { Db, Tx } from '../db/client'
 import { notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
 import { azimuthToTrue, declinationFor } from './declination'
+import { recomputeStructures } from './structures'
 
 export const listStations = (db: Db | Tx, holeId: number) =>
   db
@@ -42,12 +43,27 @@ export function stationRow(project: Project, hole: Hole, input: StationInputT): 
   }
 }
 
-/** Run in the same transaction after any survey change: the hole's survey revision goes up. */
-async function afterSurveyChange(tx: Tx, _project: Project, hole: Hole, _actorId: number) {
-  await tx
+/**
+ * Run in the same transaction after any survey change: the hole's survey revision goes up and
+ * every structure of the hole is recomputed with the new survey, audited as one recompute.
+ */
+async function afterSurveyChange(tx: Tx, project: Project, hole: Hole, actorId: number) {
+  const [bumped] = await tx
     .update(holes)
     .set({ surveyRevision: sql`${holes.surveyRevision} + 1` })
     .where(eq(holes.id, hole.id))
+    .returning()
+  const count = await recomputeStructures(tx, project, bumped)
+  if (count > 0) {
+    await audit(tx, {
+      projectId: project.id,
+      userId: actorId,
+      entity: 'structures',
+      entityId: hole.id,
+      action: 'recompute',
+      after: { surveyRevision: bumped.surveyRevision, structures: count },
+    })
+  }
 }
 
 export async function replaceSurvey(

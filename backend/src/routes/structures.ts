@@ -1,0 +1,80 @@
+import { Router } from 'express'
+import { z } from 'zod'
+import { IdParam, StructureInput, StructureUpdateBody } from '../../../schema/index'
+import type { Db } from '../db/client'
+import { projectLocals, requireRole } from '../auth/guards'
+import { inputOf, validate } from '../http/validate'
+import { holeOf } from './holes'
+import {
+  createStructure,
+  deleteStructure,
+  getStructure,
+  listStructures,
+  updateStructure,
+} from '../services/structures'
+
+const StructureParams = IdParam('structureId')
+const DeleteQuery = z.object({ version: z.coerce.number().int().positive() })
+
+/** /api/projects/:projectId/holes/:holeId/structures */
+export function structuresRouter(db: Db): Router {
+  const router = Router({ mergeParams: true })
+  const actorOf = (req: { user?: Express.User }, res: { locals: Record<string, unknown> }) => ({
+    id: req.user!.id,
+    role: projectLocals(res).role,
+  })
+
+  router.get('/', async (req, res) => {
+    const hole = await holeOf(db, req, res)
+    const rows = await listStructures(db, hole.id)
+    res.json({ data: rows, meta: { count: rows.length, surveyRevision: hole.surveyRevision } })
+  })
+  router.post('/', requireRole('logger'), validate({ body: StructureInput }), async (req, res) => {
+    const hole = await holeOf(db, req, res)
+    const { body } = inputOf(res, { body: StructureInput })
+    const row = await createStructure(db, actorOf(req, res), projectLocals(res).project, hole, body)
+    res.status(201).json({ data: row })
+  })
+  router.get('/:structureId', validate({ params: StructureParams }), async (req, res) => {
+    const hole = await holeOf(db, req, res)
+    const { params } = inputOf(res, { params: StructureParams })
+    res.json({ data: await getStructure(db, hole.id, params.structureId) })
+  })
+  router.patch(
+    '/:structureId',
+    requireRole('logger'),
+    validate({ params: StructureParams, body: StructureUpdateBody }),
+    async (req, res) => {
+      const hole = await holeOf(db, req, res)
+      const { params, body } = inputOf(res, { params: StructureParams, body: StructureUpdateBody })
+      const row = await updateStructure(
+        db,
+        actorOf(req, res),
+        projectLocals(res).project,
+        hole,
+        params.structureId,
+        body,
+      )
+      res.json({ data: row })
+    },
+  )
+  router.delete(
+    '/:structureId',
+    requireRole('logger'),
+    validate({ params: StructureParams, query: DeleteQuery }),
+    async (req, res) => {
+      const hole = await holeOf(db, req, res)
+      const { params, query } = inputOf(res, { params: StructureParams, query: DeleteQuery })
+      await deleteStructure(
+        db,
+        actorOf(req, res),
+        projectLocals(res).project,
+        hole,
+        params.structureId,
+        query.version,
+      )
+      res.status(204).end()
+    },
+  )
+  return router
+}

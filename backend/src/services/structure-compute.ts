@@ -1,0 +1,179 @@
+import {
+  coreToPlane,
+  holeAt,
+  poleOf,
+  positionAt,
+  terzaghiWeight,
+  type Line,
+  type Plane,
+} from '../../../orient/index'
+
+/** Why a computed orientation deserves a second look; shown beside the value, never instead of it. */
+export const structureFlags = [
+  'no-survey', // no survey stations: the planned direction was used
+  'beyond-survey', // deeper than the last station: its direction was held
+  'steep-hole', // hole steeper than the project threshold: bottom-of-hole marks unreliable
+  'outside-run', // no core run covers this depth
+  'poor-mark', // the run's orientation mark is poor
+  'unoriented', // no usable orientation mark (or no beta): alpha only, no dip direction
+  'blind-zone', // sub-parallel to the hole: Terzaghi weight capped
+  'beta-jump', // beta far from the previous structure of the same type in the run
+] as const
+export type StructureFlag = (typeof structureFlags)[number]
+
+export interface ComputeContext {
+  steepThresholdDeg: number
+  betaJumpDeg: number
+  referenceLine: 'bottom' | 'top'
+  collar: { east: number; north: number; elevation: number }
+  planned: Line
+  stations: readonly {
+    depth: number
+    azimuth: number
+    plunge: number
+    declinationApplied?: number
+  }[]
+  /** Sorted by fromDepth. */
+  runs: readonly {
+    fromDepth: number
+    toDepth: number
+    markConfidence: 'good' | 'fair' | 'poor' | 'none'
+  }[]
+}
+
+export interface StructureInputs {
+  depth: number
+  type: string
+  source: 'core' | 'true' | 'image'
+  alpha?: number | null
+  beta?: number | null
+  referenceLine?: 'bottom' | 'top' | null
+  inputDip?: number | null
+  inputDipDirection?: number | null
+  /** Image picks arrive already converted to a plane (at import, with the survey then). */
+  imagePlane?: Plane | null
+}
+
+export interface StructureComputed {
+  dip: number | null
+  dipDirection: number | null
+  poleTrend: number | null
+  polePlunge: number | null
+  holeTrend: number | null
+  holePlunge: number | null
+  east: number | null
+  north: number | null
+  elevation: number | null
+  terzaghiWeight: number | null
+  declinationApplied: number | null
+  flags: StructureFlag[]
+}
+
+const TERZAGHI_CAP = 10
+
+function runAt(runs: ComputeContext['runs'], depth: number) {
+  let lo = 0
+  let hi = runs.length - 1
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1
+    const r = runs[mid]
+    if (depth < r.fromDepth) hi = mid - 1
+    else if (depth >= r.toDepth) lo = mid + 1
+    else return { run: r, index: mid }
+  }
+  return undefined
+}
+
+const betaGap = (a: number, b: number) => {
+  const d = Math.abs(a - b) % 360
+  return d > 180 ? 360 - d : d
+}
+
+/**
+ * True orientation, pole, position, Terzaghi weight and flags of a hole's structures, sorted by
+ * depth (beta jumps compare each with the previous one of the same type in the same run).
+ */
+export function computeStructures(
+  ctx: ComputeContext,
+  items: readonly StructureInputs[],
+): StructureComputed[] {
+  const lastStation = ctx.stations.length ? ctx.stations[ctx.stations.length - 1].depth : -Infinity
+  const previousBeta = new Map<string, number>()
+  return items.map((s) => {
+    const flags: StructureFlag[] = []
+    let hole: Line = ctx.planned
+    if (ctx.stations.length === 0) flags.push('no-survey')
+    else {
+      hole = holeAt(ctx.stations, s.depth) ?? ctx.planned
+      if (s.depth > lastStation) flags.push('beyond-survey')
+    }
+    if (Math.abs(hole.plunge) >= ctx.steepThresholdDeg) flags.push('steep-hole')
+    const found = runAt(ctx.runs, s.depth)
+    let plane: Plane | undefined
+    let weight: number | undefined
+    if (s.source === 'core') {
+      if (!found) flags.push('outside-run')
+      else if (found.run.markConfidence === 'poor') flags.push('poor-mark')
+      const oriented = s.beta != null && found?.run.markConfidence !== 'none'
+      const alpha = s.alpha ?? 0
+      if (oriented) {
+        plane = coreToPlane({ alpha, beta: s.beta! }, hole, {
+          reference: s.referenceLine ?? ctx.referenceLine,
+        })
+        if (found) {
+          const key = `${s.type}@${found.index}`
+          const before = previousBeta.get(key)
+          if (before !== undefined && betaGap(before, s.beta!) > ctx.betaJumpDeg)
+            flags.push('beta-jump')
+          previousBeta.set(key, s.beta!)
+        }
+      } else flags.push('unoriented')
+      // On core the weight needs alpha only: w = 1/sin(alpha), capped (Terzaghi 1965).
+      const sin = Math.sin((alpha * Math.PI) / 180)
+      weight = sin * TERZAGHI_CAP <= 1 ? TERZAGHI_CAP : 1 / sin
+    } else if (s.source === 'true') {
+      plane = { dip: s.inputDip ?? 0, dipDirection: s.inputDipDirection ?? 0 }
+    } else plane = s.imagePlane ?? undefined
+    if (plane && s.source !== 'core') weight = terzaghiWeight(plane, hole, TERZAGHI_CAP)
+    if (weight !== undefined && weight >= TERZAGHI_CAP) flags.push('blind-zone')
+    const pole = plane ? poleOf(plane) : undefined
+    const at = ctx.stations.length
+      ? positionAt(ctx.stations, s.depth)
+      : plannedOffset(ctx.planned, s.depth)
+    return {
+      dip: plane?.dip ?? null,
+      dipDirection: plane?.dipDirection ?? null,
+      poleTrend: pole?.trend ?? null,
+      polePlunge: pole?.plunge ?? null,
+      holeTrend: hole.trend,
+      holePlunge: hole.plunge,
+      east: at ? ctx.collar.east + at.east : null,
+      north: at ? ctx.collar.north + at.north : null,
+      elevation: at ? ctx.collar.elevation - at.down : null,
+      terzaghiWeight: weight ?? null,
+      declinationApplied: declinationAt(ctx.stations, s.depth),
+      flags,
+    }
+  })
+}
+
+/** A straight hole along its planned direction, when there is no survey yet. */
+function plannedOffset(planned: Line, depth: number) {
+  const t = (planned.trend * Math.PI) / 180
+  const p = (planned.plunge * Math.PI) / 180
+  return {
+    east: depth * Math.sin(t) * Math.cos(p),
+    north: depth * Math.cos(t) * Math.cos(p),
+    down: depth * Math.sin(p),
+  }
+}
+
+/** Declination applied to the station at or above the depth (the survey carries it). */
+function declinationAt(stations: ComputeContext['stations'], depth: number): number | null {
+  let value: number | null = stations.length ? (stations[0].declinationApplied ?? 0) : null
+  for (const s of stations) {
+    if (s.depth > depth) break
+    value = s.declinationApplied ?? 0
+  }
+  return value
+}

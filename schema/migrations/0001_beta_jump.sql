@@ -1,0 +1,1 @@
+ALTER TABLE "projects" ADD COLUMN "beta_jump_deg" double precision DEFAULT 60 NOT NULL;
