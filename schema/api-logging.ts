@@ -131,3 +131,23 @@ export const StructureUpdateBody = z.object(structureFields).partial().extend({ 
 export type RunInputT = z.infer<typeof RunInput>
 export type StructureInputT = z.infer<typeof StructureInput>
 export type StructureUpdate = z.infer<typeof StructureUpdateBody>
+
+/** Two-letter keyboard codes of our own for structure types; the API always uses the full words. */
+export const structureTypeCodes: Record<string, (typeof structureTypes)[number]> = {
+  jt: 'joint',
+  bd: 'bedding',
+  fo: 'foliation',
+  fa: 'fault',
+  vn: 'vein',
+  sh: 'shear',
+  ct: 'contact',
+  cv: 'cleavage',
+  bz: 'broken-zone',
+}
+
+/** A type as typed or imported (word, code, any case, "broken zone") → the API word, or undefined. */
+export function parseStructureType(text: string): (typeof structureTypes)[number] | undefined {
+  const t = text.trim().toLowerCase().replace(/[\s_]+/g, '-')
+  if ((structureTypes as readonly string[]).includes(t)) return t as (typeof structureTypes)[number]
+  return structureTypeCodes[t]
+}

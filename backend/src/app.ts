@@ -9,6 +9,7 @@ import { fileURLToPath } from 'node:url'
 import type { Db } from './db/client'
 import type { Env } from './env'
 import type { Logger } from './logger'
+import type { JobQueue } from './jobs/queue'
 import { createPassport } from './auth/passport'
 import { requireCsrfToken } from './auth/csrf'
 import { loadProject, requireSignedIn } from './auth/guards'
@@ -23,12 +24,14 @@ export interface AppDeps {
   pool: pg.Pool
   env: Env
   logger: Logger
+  /** The background queue; without it (single-process tests) large imports commit in the request. */
+  jobs?: JobQueue
 }
 
 const distDir = fileURLToPath(new URL('../../frontend/dist', import.meta.url))
 
 /** Builds the Express app (no listen): security → body → session/auth → routers → errors. */
-export function createApp({ db, pool, env, logger }: AppDeps) {
+export function createApp({ db, pool, env, logger, jobs }: AppDeps) {
   const app = express()
   const passport = createPassport(db)
   const PgStore = connectPgSimple(session)
@@ -82,7 +85,11 @@ export function createApp({ db, pool, env, logger }: AppDeps) {
   app.use('/api/auth', authRouter(db, passport, env.LOGIN_ATTEMPTS_PER_WINDOW))
   app.use('/api/users', usersRouter(db))
   app.use('/api/projects', requireSignedIn, projectsRouter(db))
-  app.use('/api/projects/:projectId', loadProject(db), projectRouter(db))
+  app.use(
+    '/api/projects/:projectId',
+    loadProject(db),
+    projectRouter({ db, pool, jobs, uploadLimitMb: env.UPLOAD_LIMIT_MB }),
+  )
   app.use('/api', notFoundHandler)
   // the built app, with history-mode fallback
   if (existsSync(distDir)) {

@@ -2,11 +2,18 @@ import { createApp } from './app'
 import { createDb } from './db/client'
 import { loadEnv } from './env'
 import { createLogger } from './logger'
+import { startJobQueue } from './jobs/queue'
+import { importCommitJob } from './jobs/handlers'
 
 const env = loadEnv()
 const logger = createLogger(env.LOG_LEVEL)
 const { db, pool } = createDb(env.DATABASE_URL)
-const app = createApp({ db, pool, env, logger })
+const jobs = await startJobQueue(
+  env.DATABASE_URL,
+  { 'import-commit': importCommitJob(db, pool, logger) },
+  logger,
+)
+const app = createApp({ db, pool, env, logger, jobs })
 
 const server = app.listen(env.PORT, env.HOST, () => {
   const url = `http://${env.HOST}:${env.PORT}`
@@ -25,7 +32,10 @@ function shutdown(signal: string) {
   stopping = true
   logger.info({ signal }, 'stopping')
   server.close(() => {
-    pool.end().finally(() => process.exit(0))
+    jobs
+      .stop()
+      .then(() => pool.end())
+      .finally(() => process.exit(0))
   })
   server.closeAllConnections()
   setTimeout(() => process.exit(1), 10_000).unref()

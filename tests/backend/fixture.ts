@@ -98,6 +98,8 @@ export interface Client {
   put: (url: string, body?: object) => request.Test
   patch: (url: string, body?: object) => request.Test
   delete: (url: string) => request.Test
+  /** A POST with the CSRF header and no body yet: for multipart uploads (.field, .attach). */
+  postMultipart: (url: string) => request.Test
   csrf: string
 }
 
@@ -119,6 +121,7 @@ export async function clientFor(app: Express, who: Actor | 'anonymous'): Promise
     put: (url, body = {}) => agent.put(url).set('X-CSRF-Token', csrf).send(body),
     patch: (url, body = {}) => agent.patch(url).set('X-CSRF-Token', csrf).send(body),
     delete: (url) => agent.delete(url).set('X-CSRF-Token', csrf),
+    postMultipart: (url) => agent.post(url).set('X-CSRF-Token', csrf),
   }
 }
 

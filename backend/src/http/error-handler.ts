@@ -19,7 +19,12 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err: unknown, _req, res, _next) => {
     if (err instanceof ApiError) {
       res.status(err.status).json({
-        error: { code: err.code, message: err.message, details: err.details },
+        error: {
+          code: err.code,
+          message: err.message,
+          details: err.details,
+          ...(err.meta ? { meta: err.meta } : {}),
+        },
       })
       return
     }

@@ -10,6 +10,8 @@ export class ApiError extends Error {
     readonly code: string,
     message: string,
     readonly details: ErrorDetail[] = [],
+    /** Extra context a client needs to act on the error (e.g. an import's columns and mapping). */
+    readonly meta?: Record<string, unknown>,
   ) {
     super(message)
   }

@@ -13,6 +13,7 @@ import { inputOf, validate } from '../http/validate'
 import { notFound } from '../http/errors'
 import { logsRouter } from './logs'
 import { runsRouter } from './runs'
+import { importsRouter, type ImportDeps } from './imports'
 import { structuresRouter } from './structures'
 import { createHole, deleteHole, getHole, listHoles, updateHole } from '../services/holes'
 import {
@@ -34,11 +35,13 @@ export async function holeOf(db: Db, req: Request, res: Response) {
 }
 
 /** /api/projects/:projectId/holes and each hole's survey. */
-export function holesRouter(db: Db): Router {
+export function holesRouter(deps: ImportDeps): Router {
+  const { db } = deps
   const router = Router({ mergeParams: true })
   router.use('/:holeId/logs', logsRouter(db))
   router.use('/:holeId/runs', runsRouter(db))
   router.use('/:holeId/structures', structuresRouter(db))
+  router.use('/:holeId/imports', importsRouter(deps))
 
   router.get('/', async (_req, res) => {
     res.json({ data: await listHoles(db, projectLocals(res).project.id) })

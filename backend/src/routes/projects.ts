@@ -10,6 +10,7 @@ import type { Db } from '../db/client'
 import { projectLocals, requireAdmin, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
 import { holesRouter } from './holes'
+import type { ImportDeps } from './imports'
 import {
   addMember,
   changeMember,
@@ -37,9 +38,10 @@ export function projectsRouter(db: Db): Router {
 const MemberParams = IdParam('userId')
 
 /** /api/projects/:projectId (after loadProject): settings, members, and the holes below. */
-export function projectRouter(db: Db): Router {
+export function projectRouter(deps: ImportDeps): Router {
+  const { db } = deps
   const router = Router({ mergeParams: true })
-  router.use('/holes', holesRouter(db))
+  router.use('/holes', holesRouter(deps))
   router.get('/', (_req, res) => {
     const { project, role } = projectLocals(res)
     res.json({ data: { ...project, role } })

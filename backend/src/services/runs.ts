@@ -68,13 +68,14 @@ export function checkRunSequence(
   return { errors, gaps }
 }
 
-async function afterRunsChange(tx: Tx, project: Project, hole: Hole) {
+async function afterRunsChange(tx: Executor, project: Project, hole: Hole) {
   // Mark confidence and run limits change structure flags: recompute the hole.
   await recomputeStructures(tx, project, hole)
 }
 
-export async function replaceRuns(
-  db: Db,
+/** Replaces the hole's runs inside an open transaction (used by the API and by imports). */
+export async function replaceRunsIn(
+  tx: Executor,
   actorId: number,
   project: Project,
   hole: Hole,
@@ -82,24 +83,30 @@ export async function replaceRuns(
 ) {
   const { errors, gaps } = checkRunSequence(runs, 'body.runs')
   if (errors.length) throw badRequest('Runs overlap.', errors, 'runs_overlap')
-  return db.transaction(async (tx) => {
-    const before = await tx.select().from(coreRuns).where(eq(coreRuns.holeId, hole.id))
-    await tx.delete(coreRuns).where(eq(coreRuns.holeId, hole.id))
-    if (runs.length) await tx.insert(coreRuns).values(runs.map((r) => ({ ...r, holeId: hole.id })))
-    await afterRunsChange(tx, project, hole)
-    const after = await listRuns(tx, hole.id)
-    await audit(tx, {
-      projectId: project.id,
-      userId: actorId,
-      entity: 'core_runs',
-      entityId: hole.id,
-      action: 'replace',
-      before,
-      after,
-    })
-    return { runs: after, gaps }
+  const before = await tx.select().from(coreRuns).where(eq(coreRuns.holeId, hole.id))
+  await tx.delete(coreRuns).where(eq(coreRuns.holeId, hole.id))
+  if (runs.length) await tx.insert(coreRuns).values(runs.map((r) => ({ ...r, holeId: hole.id })))
+  await afterRunsChange(tx, project, hole)
+  const after = await listRuns(tx, hole.id)
+  await audit(tx, {
+    projectId: project.id,
+    userId: actorId,
+    entity: 'core_runs',
+    entityId: hole.id,
+    action: 'replace',
+    before,
+    after,
   })
+  return { runs: after, gaps }
 }
+
+export const replaceRuns = (
+  db: Db,
+  actorId: number,
+  project: Project,
+  hole: Hole,
+  runs: RunInputT[],
+) => db.transaction((tx) => replaceRunsIn(tx, actorId, project, hole, runs))
 
 async function assertFits(
   tx: Tx,

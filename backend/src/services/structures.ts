@@ -52,7 +52,7 @@ export const asComputeInput = (s: Structure): StructureInputs => ({
  * results in one statement. Returns how many rows were written.
  */
 export async function recomputeStructures(
-  tx: Tx,
+  tx: Executor,
   project: Project,
   hole: Hole,
   range?: { from: number; to: number },

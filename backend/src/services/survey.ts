@@ -7,13 +7,13 @@ import {
   type StationInputT,
   type SurveyStation,
 } from '../../../schema/index'
-import type { Db, Tx } from '../db/client'
+import type { Db, Executor } from '../db/client'
 import { notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
 import { azimuthToTrue, declinationFor } from './declination'
 import { recomputeStructures } from './structures'
 
-export const listStations = (db: Db | Tx, holeId: number) =>
+export const listStations = (db: Executor, holeId: number) =>
   db
     .select()
     .from(surveyStations)
@@ -47,7 +47,7 @@ export function stationRow(project: Project, hole: Hole, input: StationInputT): 
  * Run in the same transaction after any survey change: the hole's survey revision goes up and
  * every structure of the hole is recomputed with the new survey, audited as one recompute.
  */
-async function afterSurveyChange(tx: Tx, project: Project, hole: Hole, actorId: number) {
+async function afterSurveyChange(tx: Executor, project: Project, hole: Hole, actorId: number) {
   const [bumped] = await tx
     .update(holes)
     .set({ surveyRevision: sql`${holes.surveyRevision} + 1` })
@@ -66,35 +66,42 @@ async function afterSurveyChange(tx: Tx, project: Project, hole: Hole, actorId: 
   }
 }
 
-export async function replaceSurvey(
-  db: Db,
+/** Replaces the hole's survey inside an open transaction (used by the API and by imports). */
+export async function replaceSurveyIn(
+  tx: Executor,
   actorId: number,
   project: Project,
   hole: Hole,
   stations: StationInputT[],
 ): Promise<SurveyStation[]> {
-  return db.transaction(async (tx) => {
-    const before = await listStations(tx, hole.id)
-    await tx.delete(surveyStations).where(eq(surveyStations.holeId, hole.id))
-    if (stations.length > 0) {
-      await tx
-        .insert(surveyStations)
-        .values(stations.map((s) => ({ ...stationRow(project, hole, s), holeId: hole.id })))
-    }
-    const after = await listStations(tx, hole.id)
-    await afterSurveyChange(tx, project, hole, actorId)
-    await audit(tx, {
-      projectId: project.id,
-      userId: actorId,
-      entity: 'survey',
-      entityId: hole.id,
-      action: 'replace',
-      before,
-      after,
-    })
-    return after
+  const before = await listStations(tx, hole.id)
+  await tx.delete(surveyStations).where(eq(surveyStations.holeId, hole.id))
+  if (stations.length > 0) {
+    await tx
+      .insert(surveyStations)
+      .values(stations.map((s) => ({ ...stationRow(project, hole, s), holeId: hole.id })))
+  }
+  const after = await listStations(tx, hole.id)
+  await afterSurveyChange(tx, project, hole, actorId)
+  await audit(tx, {
+    projectId: project.id,
+    userId: actorId,
+    entity: 'survey',
+    entityId: hole.id,
+    action: 'replace',
+    before,
+    after,
   })
+  return after
 }
+
+export const replaceSurvey = (
+  db: Db,
+  actorId: number,
+  project: Project,
+  hole: Hole,
+  stations: StationInputT[],
+) => db.transaction((tx) => replaceSurveyIn(tx, actorId, project, hole, stations))
 
 export async function addStation(
   db: Db,

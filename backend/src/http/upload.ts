@@ -1,0 +1,39 @@
+import type { RequestHandler } from 'express'
+import multer from 'multer'
+import { ApiError, badRequest } from './errors'
+
+/**
+ * One multipart file in field `file`, held in memory up to `limitMb`. Too large → 413, no file →
+ * 400 naming the field. Other multipart fields stay on req.body as strings.
+ */
+export function singleUpload(limitMb: number): RequestHandler {
+  const parse = multer({
+    storage: multer.memoryStorage(),
+    limits: { fileSize: limitMb * 1024 * 1024, files: 1 },
+  }).single('file')
+  return (req, res, next) => {
+    parse(req, res, (err: unknown) => {
+      if (err instanceof multer.MulterError) {
+        if (err.code === 'LIMIT_FILE_SIZE')
+          return next(
+            new ApiError(413, 'too_large', `The file is larger than ${limitMb} MB.`, [
+              { path: 'file', message: `over ${limitMb} MB` },
+            ]),
+          )
+        return next(
+          badRequest(`Upload refused: ${err.message}.`, [
+            { path: err.field ?? 'file', message: err.message },
+          ]),
+        )
+      }
+      if (err) return next(err)
+      if (!req.file)
+        return next(
+          badRequest('Attach the file in the multipart field "file".', [
+            { path: 'file', message: 'required' },
+          ]),
+        )
+      next()
+    })
+  }
+}

@@ -1,0 +1,123 @@
+import { z } from 'zod'
+import {
+  confidences,
+  parseStructureType,
+  persistenceClasses,
+  referenceLines,
+  roughnessClasses,
+  StructureInput,
+  structureStates,
+  weatheringGrades,
+  type StructureInputT,
+} from '../../../../schema/index'
+import type { FieldSpec } from '../csv-rows'
+import { validateWith } from './pipe'
+
+/** How the file's angles and depths are given; converted once, here, and recorded on the import. */
+export const StructureImportOptions = z
+  .object({
+    mode: z.enum(['core', 'true']).default('core'),
+    referenceLine: z.enum(referenceLines).optional(),
+    /** 'core-axis-to-pole' files hold 90 − alpha. */
+    alphaConvention: z.enum(['alpha', 'core-axis-to-pole']).default('alpha'),
+    /** 'up-hole' files measure beta to the up-hole apex: beta ± 180. */
+    betaApex: z.enum(['down-hole', 'up-hole']).default('down-hole'),
+    depthUnit: z.enum(['m', 'ft']).default('m'),
+  })
+  .strict()
+export type StructureImportOptionsT = z.infer<typeof StructureImportOptions>
+
+export const structureFieldSpecs: FieldSpec[] = [
+  {
+    name: 'depth',
+    kind: 'number',
+    required: true,
+    aliases: ['depth_m', 'md', 'from', 'depth (m)'],
+  },
+  {
+    name: 'type',
+    kind: 'text',
+    required: true,
+    aliases: ['structure', 'struct_type', 'kind', 'code'],
+  },
+  { name: 'alpha', kind: 'number', required: false, aliases: ['alpha_deg', 'a'] },
+  { name: 'beta', kind: 'number', required: false, aliases: ['beta_deg', 'b'] },
+  { name: 'gamma', kind: 'number', required: false, aliases: ['gamma_deg', 'g'] },
+  { name: 'dip', kind: 'number', required: false, aliases: ['true_dip'] },
+  {
+    name: 'dipDirection',
+    kind: 'number',
+    required: false,
+    aliases: ['dip_direction', 'dipdir', 'dip_dir', 'dd'],
+  },
+  { name: 'roughness', kind: 'text', required: false, aliases: ['roughness_class', 'rough'] },
+  { name: 'jrc', kind: 'number', required: false, aliases: [] },
+  { name: 'apertureMm', kind: 'number', required: false, aliases: ['aperture', 'aperture_mm'] },
+  { name: 'infillType', kind: 'text', required: false, aliases: ['infill', 'infill_type'] },
+  {
+    name: 'infillThicknessMm',
+    kind: 'number',
+    required: false,
+    aliases: ['infill_thickness', 'infill_mm'],
+  },
+  { name: 'persistence', kind: 'text', required: false, aliases: [] },
+  {
+    name: 'wallWeathering',
+    kind: 'text',
+    required: false,
+    aliases: ['weathering', 'wall_weathering'],
+  },
+  { name: 'state', kind: 'text', required: false, aliases: ['open_closed'] },
+  { name: 'confidence', kind: 'text', required: false, aliases: [] },
+  { name: 'comment', kind: 'text', required: false, aliases: ['comments', 'remarks', 'note'] },
+]
+
+const lower = <T extends readonly string[]>(values: T) =>
+  z.preprocess((v) => (typeof v === 'string' ? v.trim().toLowerCase() : v), z.enum(values))
+
+/** One CSV row (numbers already parsed) → a structure input, in the file's stated conventions. */
+export function structureRowSchema(options: StructureImportOptionsT): z.ZodType<StructureInputT> {
+  const raw = z.object({
+    depth: z.number().min(0),
+    type: z.string().transform((t, ctx) => {
+      const type = parseStructureType(t)
+      if (!type) ctx.addIssue({ code: 'custom', message: `"${t}" is not a structure type` })
+      return type ?? 'joint'
+    }),
+    alpha: z.number().min(0).max(90).optional(),
+    beta: z.number().min(0).max(360).optional(),
+    gamma: z.number().min(0).max(360).optional(),
+    dip: z.number().min(0).max(90).optional(),
+    dipDirection: z.number().min(0).max(360).optional(),
+    roughness: z
+      .preprocess(
+        (v) => (typeof v === 'string' ? v.trim().toUpperCase() : v),
+        z.enum(roughnessClasses),
+      )
+      .optional(),
+    jrc: z.number().min(0).max(20).optional(),
+    apertureMm: z.number().min(0).optional(),
+    infillType: z.string().max(60).optional(),
+    infillThicknessMm: z.number().min(0).optional(),
+    persistence: lower(persistenceClasses).optional(),
+    wallWeathering: lower(weatheringGrades).optional(),
+    state: lower(structureStates).optional(),
+    confidence: lower(confidences).optional(),
+    comment: z.string().max(1000).optional(),
+  })
+  return raw.transform(({ dip, dipDirection, alpha, beta, ...r }, ctx) => {
+    const converted = {
+      alpha:
+        alpha !== undefined && options.alphaConvention === 'core-axis-to-pole' ? 90 - alpha : alpha,
+      beta: beta !== undefined && options.betaApex === 'up-hole' ? (beta + 180) % 360 : beta,
+    }
+    const value = {
+      ...r,
+      ...(options.mode === 'true' ? { dip, dipDirection } : converted),
+      source: options.mode,
+      depth: options.depthUnit === 'ft' ? r.depth * 0.3048 : r.depth,
+      ...(options.referenceLine ? { referenceLine: options.referenceLine } : {}),
+    }
+    return validateWith(StructureInput, value, ctx)
+  })
+}

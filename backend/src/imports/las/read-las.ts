@@ -1,0 +1,155 @@
+import { readData } from './data'
+import { headerNumber } from './header-line'
+import { readItems, readOther, readVersion } from './header-sections'
+import { checkIndex } from './checks'
+import { scanSections, sectionKind, titleWord, type Section } from './sections'
+import { decodeLas } from './text'
+import { metresPerUnit } from './units'
+import {
+  LasReadError,
+  refuse,
+  type HeaderItem,
+  type LasCurve,
+  type LasFile,
+  type LasProblem,
+  type LasSectionNote,
+} from './types'
+
+/**
+ * Reads a LAS 2.0 or 3.0 file (CWLS Log ASCII Standard) from its bytes or text. Linear in the
+ * file size and free of backtracking patterns, so hostile input cannot stall it. Throws
+ * LasReadError (with line numbers) for a file that cannot be read as a depth log; returns
+ * warnings in `problems` for what it read around.
+ */
+export function readLas(input: Uint8Array | string): LasFile {
+  const text = typeof input === 'string' ? input : decodeLas(input)
+  const problems: LasProblem[] = []
+  const sections = scanSections(text)
+  const head = sections[0]
+  if (sectionKind(head.title, false) !== 'V') {
+    refuse(head.line, `The first section must be ~V (version), not ~${head.title.slice(0, 30)}.`)
+  }
+  const { version, wrap, delimiter } = readVersion(text, head, problems)
+  const v3 = version === '3.0'
+  const found: Partial<Record<'W' | 'C' | 'A', Section>> = {}
+  const parameters: HeaderItem[] = []
+  const wellItems: HeaderItem[] = []
+  const otherSections: LasSectionNote[] = []
+  let other = ''
+  for (const s of sections.slice(1)) {
+    const kind = sectionKind(s.title, v3)
+    if (kind === 'V' || ((kind === 'C' || kind === 'A') && found[kind])) {
+      refuse(s.line, `A second ~${kind} section: the file must have only one.`)
+    }
+    if (!v3 && found.A) {
+      problems.push({ line: s.line, message: 'A section after ~A (LAS 2.0 puts ~A last).' })
+    }
+    if (kind === 'W') wellItems.push(...readItems(text, s, v3, problems))
+    else if (kind === 'P') parameters.push(...readItems(text, s, v3, problems))
+    else if (kind === 'O') other = other ? `${other}\n${readOther(text, s)}` : readOther(text, s)
+    else if (kind === 'C' || kind === 'A') found[kind] = s
+    else {
+      const inclinometry = titleWord(s.title).startsWith('INCLINOMETRY')
+      otherSections.push({ title: s.title.slice(0, 80), line: s.line, inclinometry })
+      problems.push({
+        line: s.line,
+        message: `Section ~${titleWord(s.title).slice(0, 40)} noted, not imported.`,
+      })
+    }
+  }
+  const curveSection = found.C
+  const data = found.A
+  if (!curveSection)
+    refuse(sections.at(-1)!.line, 'No ~C (curve) section: the columns are unknown.')
+  if (!data) refuse(lineCount(text), 'No ~A (data) section: the file ends without samples.')
+
+  const well: Record<string, HeaderItem> = {}
+  for (const item of wellItems) {
+    const key = item.mnemonic.toUpperCase()
+    if (well[key])
+      problems.push({ line: item.line, message: `${key} given twice: the first kept.` })
+    else well[key] = item
+  }
+  const curveItems = readItems(text, curveSection, v3, problems, true)
+  if (curveItems.length === 0) refuse(curveSection.line, 'The ~C section defines no curves.')
+  renameDuplicates(curveItems, problems)
+
+  const index = curveItems[0]
+  const unitItem = index.unit ? index : well.STRT
+  const depthUnit = (unitItem?.unit ?? '').toUpperCase()
+  let metres = metresPerUnit(depthUnit)
+  if (metres === undefined) {
+    if (depthUnit !== '') {
+      refuse(
+        index.line,
+        `The index ${index.mnemonic} is in "${depthUnit}": only depth logs (M, F, FT) are read.`,
+      )
+    }
+    problems.push({ line: index.line, message: 'No depth unit given: metres assumed.' })
+    metres = 1
+  }
+  const nullValue = well.NULL ? headerNumber(well.NULL.value) : null
+  if (nullValue === null)
+    problems.push({
+      line: well.NULL?.line ?? null,
+      message: 'No numeric NULL value: no sample is read as absent.',
+    })
+
+  const result = readData({
+    ...data,
+    text,
+    curveCount: curveItems.length,
+    wrap,
+    delimiter,
+    nullValue,
+  })
+  if (result.errors.length > 0) throw new LasReadError(result.errors)
+  if (result.rows === 0) refuse(data.line, 'The ~A section holds no samples.')
+  problems.push(...result.warnings)
+
+  const num = (m: string) => (well[m] ? headerNumber(well[m].value) : null)
+  const [start, stop, step] = [num('STRT'), num('STOP'), num('STEP')]
+  checkIndex(result.columns[0], { start, stop, step, line: well.STEP?.line ?? null }, problems)
+  const curves: LasCurve[] = curveItems.map((item, i) => ({ ...item, values: result.columns[i] }))
+  return {
+    version,
+    wrap,
+    delimiter,
+    well,
+    start,
+    stop,
+    step,
+    nullValue,
+    parameters,
+    other,
+    curves,
+    depthUnit: depthUnit || 'M',
+    metresPerDepthUnit: metres,
+    sampleCount: result.rows,
+    otherSections,
+    problems,
+  }
+}
+
+/** Two curves named alike (GR twice) would clash by mnemonic: the later ones become GR:2, GR:3. */
+function renameDuplicates(items: HeaderItem[], problems: LasProblem[]) {
+  const seen = new Map<string, number>()
+  for (const item of items) {
+    const key = item.mnemonic.toUpperCase()
+    const count = (seen.get(key) ?? 0) + 1
+    seen.set(key, count)
+    if (count > 1) {
+      problems.push({
+        line: item.line,
+        message: `Curve ${item.mnemonic} repeated: read as ${item.mnemonic}:${count}.`,
+      })
+      item.mnemonic = `${item.mnemonic}:${count}`
+    }
+  }
+}
+
+function lineCount(text: string): number {
+  let n = 1
+  for (let i = text.indexOf('\n'); i >= 0 && i < text.length - 1; i = text.indexOf('\n', i + 1)) n++
+  return n
+}

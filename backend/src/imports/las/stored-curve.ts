@@ -1,0 +1,97 @@
+import { depthsInMetres } from './summary'
+import type { LasFile } from './types'
+
+/** One curve as stored: parallel arrays, leading and trailing absent samples dropped. */
+export interface StoredSamples {
+  depths: number[]
+  values: (number | null)[]
+  minDepth: number
+  maxDepth: number
+}
+
+/**
+ * Depths (metres, after shift) and values (NaN = absent) → the arrays of a `log_curves` row,
+ * sorted by increasing depth. Absent samples inside the curve stay as null; a curve with no value
+ * at all gives null (nothing worth storing).
+ */
+export function storedSamples(depths: Float64Array, values: Float64Array): StoredSamples | null {
+  let a = 0
+  let b = values.length - 1
+  while (a <= b && Number.isNaN(values[a])) a++
+  while (b >= a && Number.isNaN(values[b])) b--
+  if (a > b) return null
+  const n = b - a + 1
+  const descending = depths[b] < depths[a]
+  const outDepths = new Array<number>(n)
+  const outValues = new Array<number | null>(n)
+  for (let k = 0; k < n; k++) {
+    const i = descending ? b - k : a + k
+    outDepths[k] = depths[i]
+    outValues[k] = Number.isNaN(values[i]) ? null : values[i]
+  }
+  return {
+    depths: outDepths,
+    values: outValues,
+    minDepth: outDepths[0],
+    maxDepth: outDepths[n - 1],
+  }
+}
+
+/**
+ * PostgreSQL array text for float8[] with NULL elements, e.g. `{1.5,NULL,2}`; sent as one bound
+ * parameter and cast in SQL (`$1::float8[]`).
+ */
+export function float8ArrayLiteral(values: readonly (number | null)[]): string {
+  const parts = new Array<string>(values.length)
+  for (let i = 0; i < values.length; i++) {
+    const v = values[i]
+    parts[i] = v === null || !Number.isFinite(v) ? 'NULL' : String(v)
+  }
+  return `{${parts.join(',')}}`
+}
+
+export interface CurveToStore extends StoredSamples {
+  mnemonic: string
+  unit: string
+  description: string
+}
+
+export interface CurveChoice {
+  curves: CurveToStore[]
+  /** Chosen curves with no value at all: not stored. */
+  skipped: string[]
+  /** Requested names that are not data curves of the file, by their position in the request. */
+  unknown: { position: number; message: string }[]
+}
+
+/** The data curves to store from a file: all but the index when `wanted` is undefined. */
+export function curvesToStore(
+  file: LasFile,
+  wanted: string[] | undefined,
+  depthShift: number,
+): CurveChoice {
+  const [index, ...available] = file.curves
+  const names = wanted ?? available.map((c) => c.mnemonic)
+  const unknown = names.flatMap((m, position) =>
+    available.some((c) => c.mnemonic === m)
+      ? []
+      : [
+          {
+            position,
+            message:
+              m === index.mnemonic ? 'That is the depth index.' : 'No such curve in the file.',
+          },
+        ],
+  )
+  const depths = depthsInMetres(file, depthShift)
+  const curves: CurveToStore[] = []
+  const skipped: string[] = []
+  for (const c of available) {
+    if (!names.includes(c.mnemonic)) continue
+    const samples = storedSamples(depths, c.values)
+    if (samples)
+      curves.push({ ...samples, mnemonic: c.mnemonic, unit: c.unit, description: c.description })
+    else skipped.push(c.mnemonic)
+  }
+  return { curves, skipped, unknown }
+}

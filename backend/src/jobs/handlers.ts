@@ -1,0 +1,25 @@
+import type pg from 'pg'
+import type { Db } from '../db/client'
+import { ApiError } from '../http/errors'
+import type { Logger } from '../logger'
+import { commitImport } from '../services/imports'
+import type { JobHandler } from './queue'
+
+/**
+ * Commits a queued import. A refusal (row errors, overlaps) is final: the import reads `failed`
+ * with the reason and the job ends. Anything else (database gone) is thrown for pg-boss to retry.
+ */
+export function importCommitJob(db: Db, pool: pg.Pool, logger: Logger): JobHandler {
+  return async (data) => {
+    const importId = String(data.importId)
+    try {
+      await commitImport(db, pool, importId, { fromJob: true })
+    } catch (err: unknown) {
+      if (err instanceof ApiError) {
+        logger.warn({ importId, code: err.code }, 'import refused')
+        return
+      }
+      throw err
+    }
+  }
+}
