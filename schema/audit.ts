@@ -20,3 +20,9 @@ export const auditEvents = pgTable(
 )
 
 export type AuditEvent = typeof auditEvents.$inferSelect
+
+/** Demo and data seeding steps already applied, so each runs once even after people edit or delete. */
+export const seedSteps = pgTable('seed_steps', {
+  name: text('name').primaryKey(),
+  appliedAt: timestamp('applied_at', { withTimezone: true }).notNull().defaultNow(),
+})

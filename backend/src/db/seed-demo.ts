@@ -1,5 +1,16 @@
-import { and, eq } from 'drizzle-orm'
-import { holes, memberships, projects, surveyStations, users } from '../../../schema/index'
+import { and, asc, eq } from 'drizzle-orm'
+import {
+  coreRuns,
+  holes,
+  memberships,
+  projects,
+  seedSteps,
+  structures,
+  surveyStations,
+  users,
+} from '../../../schema/index'
+import { recomputeStructures } from '../services/structures'
+import { demoLogging } from './demo-logging'
 import { hashPassword } from '../auth/passport'
 import { stationRow } from '../services/survey'
 import { declinationFor } from '../services/declination'
@@ -50,8 +61,44 @@ export async function seedDemo(db: Db): Promise<void> {
         .returning()
       // Only a hole created now gets its demo survey: an existing hole keeps its own.
       if (inserted.length === 1) await seedSurvey(tx, project, inserted[0], demo)
+      await once(tx, `demo:${demo.name}:logging`, () => seedLogging(tx, project, demo))
     }
   })
+}
+
+/** Runs `step` unless a seed step of that name was applied before (even if its rows were edited since). */
+async function once(tx: Tx, name: string, step: () => Promise<void>) {
+  const [done] = await tx.select().from(seedSteps).where(eq(seedSteps.name, name))
+  if (done) return
+  await step()
+  await tx.insert(seedSteps).values({ name })
+}
+
+/** Core runs and structures for a demo hole, computed with its survey like any logged structure. */
+async function seedLogging(tx: Tx, project: typeof projects.$inferSelect, demo: DemoHole) {
+  const [hole] = await tx
+    .select()
+    .from(holes)
+    .where(and(eq(holes.projectId, project.id), eq(holes.name, demo.name)))
+  if (!hole) return
+  const stations = await tx
+    .select()
+    .from(surveyStations)
+    .where(eq(surveyStations.holeId, hole.id))
+    .orderBy(asc(surveyStations.depth))
+  if (stations.length === 0) return
+  const { runs, structures: items } = demoLogging(demo.name, hole.finalDepth, stations)
+  await tx.insert(coreRuns).values(runs.map((r) => ({ ...r, holeId: hole.id })))
+  for (let i = 0; i < items.length; i += 500) {
+    await tx
+      .insert(structures)
+      .values(
+        items
+          .slice(i, i + 500)
+          .map(({ dip: _d, dipDirection: _dd, ...s }) => ({ ...s, holeId: hole.id })),
+      )
+  }
+  await recomputeStructures(tx, project, hole)
 }
 
 async function seedSurvey(
