@@ -68,7 +68,8 @@ export const RunInput = RunFields.extend({
 export const RunUpdateBody = RunFields.partial().extend({ version }).strict()
 export const RunsReplaceBody = z.object({ runs: z.array(RunInput).max(5000) }).strict()
 
-const structureFields = {
+/** The field rules of a structure, shared by the API body and the CSV import rows. */
+export const structureFields = {
   depth,
   type: z.enum(structureTypes),
   source: z.enum(['core', 'true']),
@@ -96,7 +97,8 @@ type StructureShape = {
   dip?: number
   dipDirection?: number
 }
-const inputsComplete = (s: StructureShape, ctx: z.RefinementCtx) => {
+/** Core measurements need alpha; true orientations need dip and dip direction. */
+export const inputsComplete = (s: StructureShape, ctx: z.RefinementCtx) => {
   if ((s.source ?? 'core') === 'core' && s.alpha === undefined) {
     ctx.addIssue({
       code: 'custom',
@@ -147,7 +149,10 @@ export const structureTypeCodes: Record<string, (typeof structureTypes)[number]>
 
 /** A type as typed or imported (word, code, any case, "broken zone") → the API word, or undefined. */
 export function parseStructureType(text: string): (typeof structureTypes)[number] | undefined {
-  const t = text.trim().toLowerCase().replace(/[\s_]+/g, '-')
+  const t = text
+    .trim()
+    .toLowerCase()
+    .replace(/[\s_]+/g, '-')
   if ((structureTypes as readonly string[]).includes(t)) return t as (typeof structureTypes)[number]
   return structureTypeCodes[t]
 }

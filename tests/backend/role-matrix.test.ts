@@ -1,6 +1,15 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { eq } from 'drizzle-orm'
-import { holes, memberships, projects, surveyStations, users } from '../../schema/index'
+import {
+  coreRuns,
+  holes,
+  imports,
+  memberships,
+  projects,
+  structures,
+  surveyStations,
+  users,
+} from '../../schema/index'
 import {
   actors,
   clientFor,
@@ -62,6 +71,46 @@ const freshStation = async (fx: Fixture) => {
     })
     .returning()
   return s
+}
+const freshRun = async (fx: Fixture) => {
+  const from = 2000 + 10 * unique()
+  const [r] = await fx.db
+    .insert(coreRuns)
+    .values({
+      holeId: fx.holeId,
+      fromDepth: from,
+      toDepth: from + 3,
+      recovered: 3,
+      solid: 2.5,
+      rqdLength: 2,
+    })
+    .returning()
+  return r
+}
+const freshStructure = async (fx: Fixture) => {
+  const [s] = await fx.db
+    .insert(structures)
+    .values({ holeId: fx.holeId, depth: 5 + unique() / 100, type: 'joint', alpha: 40, beta: 10 })
+    .returning()
+  return s
+}
+const freshImport = async (fx: Fixture) => {
+  const [i] = await fx.db
+    .insert(imports)
+    .values({
+      projectId: fx.projectId,
+      holeId: fx.holeId,
+      kind: 'structures',
+      fileName: 'one.csv',
+      file: Buffer.from(`depth,type,alpha,beta\n${1 + unique() / 1000},joint,45,90\n`),
+      options: {
+        mapping: { depth: 'depth', type: 'type', alpha: 'alpha', beta: 'beta' },
+        options: {},
+      },
+      rowCount: 1,
+    })
+    .returning()
+  return i
 }
 const station = () => ({ depth: 500 + unique(), azimuth: 12, plunge: 58, azimuthReference: 'true' })
 
@@ -235,6 +284,121 @@ const cases: RouteCase[] = [
     need: 'logger',
     ok: 204,
     prepare: async (fx) => ({ path: `${H(fx)}/survey/${(await freshStation(fx)).id}` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/runs',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/runs` }),
+  },
+  {
+    method: 'put',
+    route: '/api/projects/:projectId/holes/:holeId/runs',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => ({
+      path: `${H(fx)}/runs`,
+      body: { runs: [{ fromDepth: 0, toDepth: 3, recovered: 3, solid: 2, rqdLength: 1.5 }] },
+    }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/runs',
+    need: 'logger',
+    ok: 201,
+    prepare: async (fx) => {
+      const from = 3000 + 10 * unique()
+      return {
+        path: `${H(fx)}/runs`,
+        body: { fromDepth: from, toDepth: from + 3, recovered: 3, solid: 2, rqdLength: 1 },
+      }
+    },
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/holes/:holeId/runs/:runId',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => {
+      const r = await freshRun(fx)
+      return { path: `${H(fx)}/runs/${r.id}`, body: { version: r.version, fractureCount: 4 } }
+    },
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/runs/:runId',
+    need: 'logger',
+    ok: 204,
+    prepare: async (fx) => ({ path: `${H(fx)}/runs/${(await freshRun(fx)).id}` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/structures',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/structures` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/structures',
+    need: 'logger',
+    ok: 201,
+    prepare: async (fx) => ({
+      path: `${H(fx)}/structures`,
+      body: { depth: 10 + unique() / 100, type: 'joint', alpha: 50, beta: 120 },
+    }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/structures/:structureId',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/structures/${(await freshStructure(fx)).id}` }),
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/holes/:holeId/structures/:structureId',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => {
+      const st = await freshStructure(fx)
+      return {
+        path: `${H(fx)}/structures/${st.id}`,
+        body: { version: st.version, comment: 'seen' },
+      }
+    },
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/structures/:structureId',
+    need: 'logger',
+    ok: 204,
+    prepare: async (fx) => {
+      const st = await freshStructure(fx)
+      return { path: `${H(fx)}/structures/${st.id}?version=${st.version}` }
+    },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/imports',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/imports` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/imports/:importId',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/imports/${(await freshImport(fx)).id}` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/imports/:importId/commit',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/imports/${(await freshImport(fx)).id}/commit` }),
   },
   {
     method: 'get',

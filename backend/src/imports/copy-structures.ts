@@ -48,6 +48,7 @@ const columns = [
 /** One value in COPY text format: \N for null, backslash escapes for tab, newline and backslash. */
 function field(v: unknown): string {
   if (v === null || v === undefined) return '\\N'
+  if (typeof v === 'number') return String(v)
   if (Array.isArray(v)) return `{${v.join(',')}}`
   return String(v).replace(/[\\\t\n\r]/g, (c) =>
     c === '\\' ? '\\\\' : c === '\t' ? '\\t' : c === '\n' ? '\\n' : '\\r',

@@ -13,7 +13,7 @@ export function importCommitJob(db: Db, pool: pg.Pool, logger: Logger): JobHandl
   return async (data) => {
     const importId = String(data.importId)
     try {
-      await commitImport(db, pool, importId, { fromJob: true })
+      await commitImport(db, pool, importId, { fromJob: true, actorId: Number(data.actorId) })
     } catch (err: unknown) {
       if (err instanceof ApiError) {
         logger.warn({ importId, code: err.code }, 'import refused')

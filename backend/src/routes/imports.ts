@@ -103,13 +103,13 @@ export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Ro
       const found = await getImport(db, hole.projectId, hole.id, params.importId)
       if (jobs && found.rowCount > BACKGROUND_ROWS) {
         await queueImport(db, found.id)
-        await jobs.send('import-commit', { importId: found.id })
+        await jobs.send('import-commit', { importId: found.id, actorId: req.user!.id })
         res
           .status(202)
           .json({ data: importView(await getImport(db, hole.projectId, hole.id, found.id)) })
         return
       }
-      await commitImport(db, pool, found.id, { fromJob: false })
+      await commitImport(db, pool, found.id, { fromJob: false, actorId: req.user!.id })
       res.json({ data: importView(await getImport(db, hole.projectId, hole.id, found.id)) })
     },
   )

@@ -174,7 +174,12 @@ export async function queueImport(db: Db, id: string): Promise<void> {
  * by replacement. Any failure rolls everything back; the import then reads `failed` with the
  * reason (from a job) or stays `previewed` (from a request, which sees the error itself).
  */
-export async function commitImport(db: Db, pool: pg.Pool, id: string, opts: { fromJob: boolean }) {
+export async function commitImport(
+  db: Db,
+  pool: pg.Pool,
+  id: string,
+  opts: { fromJob: boolean; actorId: number },
+) {
   const claimed = await claim(
     db,
     id,
@@ -196,7 +201,7 @@ export async function commitImport(db: Db, pool: pg.Pool, id: string, opts: { fr
       settings.options,
     )
     if (a.errors.length) rowErrorsFail(a)
-    const userId = claimed.createdBy ?? 0
+    const userId = opts.actorId
     if (a.kind === 'structures') {
       const existing = await tx
         .select({ n: sql<number>`count(*)::int` })

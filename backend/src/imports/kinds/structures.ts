@@ -5,13 +5,13 @@ import {
   persistenceClasses,
   referenceLines,
   roughnessClasses,
-  StructureInput,
+  inputsComplete,
+  structureFields,
   structureStates,
   weatheringGrades,
   type StructureInputT,
 } from '../../../../schema/index'
 import type { FieldSpec } from '../csv-rows'
-import { validateWith } from './pipe'
 
 /** How the file's angles and depths are given; converted once, here, and recorded on the import. */
 export const StructureImportOptions = z
@@ -75,49 +75,61 @@ export const structureFieldSpecs: FieldSpec[] = [
 const lower = <T extends readonly string[]>(values: T) =>
   z.preprocess((v) => (typeof v === 'string' ? v.trim().toLowerCase() : v), z.enum(values))
 
-/** One CSV row (numbers already parsed) → a structure input, in the file's stated conventions. */
+/**
+ * One CSV row (numbers already parsed) → a structure input, in the file's stated conventions. One
+ * zod pass per row: the numeric rules are the API's own (`structureFields`), the enums accept any
+ * case, and the same completeness rule (`inputsComplete`) runs on the converted row.
+ */
 export function structureRowSchema(options: StructureImportOptionsT): z.ZodType<StructureInputT> {
-  const raw = z.object({
-    depth: z.number().min(0),
-    type: z.string().transform((t, ctx) => {
-      const type = parseStructureType(t)
-      if (!type) ctx.addIssue({ code: 'custom', message: `"${t}" is not a structure type` })
-      return type ?? 'joint'
-    }),
-    alpha: z.number().min(0).max(90).optional(),
-    beta: z.number().min(0).max(360).optional(),
-    gamma: z.number().min(0).max(360).optional(),
-    dip: z.number().min(0).max(90).optional(),
-    dipDirection: z.number().min(0).max(360).optional(),
-    roughness: z
-      .preprocess(
-        (v) => (typeof v === 'string' ? v.trim().toUpperCase() : v),
-        z.enum(roughnessClasses),
-      )
-      .optional(),
-    jrc: z.number().min(0).max(20).optional(),
-    apertureMm: z.number().min(0).optional(),
-    infillType: z.string().max(60).optional(),
-    infillThicknessMm: z.number().min(0).optional(),
-    persistence: lower(persistenceClasses).optional(),
-    wallWeathering: lower(weatheringGrades).optional(),
-    state: lower(structureStates).optional(),
-    confidence: lower(confidences).optional(),
-    comment: z.string().max(1000).optional(),
-  })
-  return raw.transform(({ dip, dipDirection, alpha, beta, ...r }, ctx) => {
-    const converted = {
-      alpha:
-        alpha !== undefined && options.alphaConvention === 'core-axis-to-pole' ? 90 - alpha : alpha,
-      beta: beta !== undefined && options.betaApex === 'up-hole' ? (beta + 180) % 360 : beta,
-    }
-    const value = {
-      ...r,
-      ...(options.mode === 'true' ? { dip, dipDirection } : converted),
-      source: options.mode,
-      depth: options.depthUnit === 'ft' ? r.depth * 0.3048 : r.depth,
-      ...(options.referenceLine ? { referenceLine: options.referenceLine } : {}),
-    }
-    return validateWith(StructureInput, value, ctx)
-  })
+  const f = structureFields
+  return z
+    .object({
+      depth: f.depth,
+      type: z.string().transform((t, ctx) => {
+        const type = parseStructureType(t)
+        if (!type) ctx.addIssue({ code: 'custom', message: `"${t}" is not a structure type` })
+        return type ?? 'joint'
+      }),
+      alpha: f.alpha,
+      beta: f.beta,
+      gamma: f.gamma,
+      dip: f.dip,
+      dipDirection: f.dipDirection,
+      roughness: z
+        .preprocess(
+          (v) => (typeof v === 'string' ? v.trim().toUpperCase() : v),
+          z.enum(roughnessClasses),
+        )
+        .optional(),
+      jrc: f.jrc,
+      apertureMm: f.apertureMm,
+      infillType: f.infillType,
+      infillThicknessMm: f.infillThicknessMm,
+      persistence: lower(persistenceClasses).optional(),
+      wallWeathering: lower(weatheringGrades).optional(),
+      state: lower(structureStates).optional(),
+      confidence: lower(confidences).optional(),
+      comment: f.comment,
+    })
+    .transform(({ dip, dipDirection, alpha, beta, depth, ...r }): StructureInputT => {
+      const angles =
+        options.mode === 'true'
+          ? { dip, dipDirection }
+          : {
+              alpha:
+                alpha !== undefined && options.alphaConvention === 'core-axis-to-pole'
+                  ? 90 - alpha
+                  : alpha,
+              beta:
+                beta !== undefined && options.betaApex === 'up-hole' ? (beta + 180) % 360 : beta,
+            }
+      return {
+        ...r,
+        ...angles,
+        source: options.mode,
+        depth: options.depthUnit === 'ft' ? depth * 0.3048 : depth,
+        ...(options.referenceLine ? { referenceLine: options.referenceLine } : {}),
+      }
+    })
+    .superRefine(inputsComplete)
 }
