@@ -1,0 +1,62 @@
+// Downdip orientation engine: the only public entry. Degrees at this boundary everywhere; planes as
+// { dipDirection, dip }, lines as { trend, plunge } with plunge positive down.
+
+export type {
+  CoreAngles,
+  CoreLineAngles,
+  CoreOptions,
+  CoreReference,
+  Line,
+  Offset,
+  Plane,
+  Vec3,
+} from './types'
+export { azimuthDifference, wrap360 } from './math'
+
+export { isSteepHole } from './hole-frame'
+export { coreToPlane, planeToCore } from './core'
+export { coreToLine } from './core-line'
+export { coreToPlaneBatch } from './core-batch'
+export type { CoreBatchInput, CoreBatchResult, PlaneBatch } from './core-batch'
+export { highSideFromNorth, imagePickToPlane } from './image-pick'
+export type { ImagePick } from './image-pick'
+
+export { desurvey, doglegs } from './survey'
+export type { Dogleg, SurveyPoint, SurveyStation } from './survey'
+export { holeAt, holeAtBatch, positionAt } from './survey-interpolate'
+export { magneticDeclination, toGridAzimuth, toTrueAzimuth } from './declination'
+export type { DeclinationQuery } from './declination'
+
+export {
+  angleBetweenLines,
+  angleBetweenPlanes,
+  apparentDip,
+  planeIntersection,
+  planeOfPole,
+  poleOf,
+} from './planes'
+export { project, unproject } from './projection'
+export type { NetPoint, NetProjection } from './projection'
+export { greatCircle, smallCircle } from './circles'
+
+export { linesToXyz, orientationTensor, orientationTensorBatch } from './tensor'
+export type { OrientationTensor } from './tensor'
+export { fisherStats, fisherStatsBatch } from './fisher'
+export type { FisherOptions, FisherStats } from './fisher'
+export { densityGrid } from './density'
+export type { DensityGrid, DensityOptions } from './density'
+export { countingCapAngle, EXPONENTIAL_TRUNCATION } from './density-kernels'
+export type { DensityMethod } from './density-kernels'
+export { clusterSets } from './cluster'
+export type { ClusterOptions, ClusterResult, ClusterSet } from './cluster'
+export { suggestK } from './suggest-k'
+export type { KSuggestion } from './suggest-k'
+export { setMembership } from './membership'
+export type { SetCone } from './membership'
+
+export { inBlindZone, terzaghiWeight } from './terzaghi'
+export { rqdClass, rqdFromFrequency, runMetrics } from './rqd'
+export type { CoreRun, RqdClass, RunFlag, RunMetrics } from './rqd'
+export { kinematicChecks } from './kinematic'
+export type { KinematicResult, PairVerdict, PlaneVerdict, WedgePair } from './kinematic'
+export type { KinematicSettings, Verdict, WedgeVerdict } from './kinematic-rules'
