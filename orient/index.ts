@@ -23,7 +23,8 @@ export type { ImagePick } from './image-pick'
 
 export { desurvey, doglegs } from './survey'
 export type { Dogleg, SurveyPoint, SurveyStation } from './survey'
-export { holeAt, holeAtBatch, positionAt } from './survey-interpolate'
+export { holeAt, holeAtBatch, positionAt, prepareSurvey } from './survey-interpolate'
+export type { PreparedSurvey } from './survey-interpolate'
 export { magneticDeclination, toGridAzimuth, toTrueAzimuth } from './declination'
 export type { DeclinationQuery } from './declination'
 

@@ -61,9 +61,7 @@ function tangentAt(clean: readonly CleanStation[], depth: number): Vec3 {
  * without a valid station or for a non-finite depth (or beyond ±1e7 m).
  */
 export function holeAt(stations: readonly SurveyStation[], depth: number): Line | undefined {
-  const clean = cleanStations(stations)
-  if (clean.length === 0 || !validDepth(depth)) return undefined
-  return vecToDirection(tangentAt(clean, depth))
+  return prepareSurvey(stations).holeAt(depth)
 }
 
 /**
@@ -98,23 +96,44 @@ export function holeAtBatch(
  * collar above the first station; straight along the last direction beyond the last.
  */
 export function positionAt(stations: readonly SurveyStation[], depth: number): Offset | undefined {
+  return prepareSurvey(stations).positionAt(depth)
+}
+
+/** A survey cleaned and desurveyed once, for many look-ups (imports, recomputes). */
+export interface PreparedSurvey {
+  /** Same as holeAt(stations, depth). */
+  holeAt(depth: number): Line | undefined
+  /** Same as positionAt(stations, depth). */
+  positionAt(depth: number): Offset | undefined
+}
+
+/**
+ * holeAt and positionAt for one survey with the stations cleaned and their minimum-curvature
+ * positions computed once: O(log n) per look-up instead of O(n).
+ */
+export function prepareSurvey(stations: readonly SurveyStation[]): PreparedSurvey {
   const clean = cleanStations(stations)
-  if (clean.length === 0 || !validDepth(depth)) return undefined
-  const i = segmentIndex(clean, depth)
-  if (i < 0) {
-    const t = clean[0].t
-    return { east: t[0] * depth, north: t[1] * depth, down: -t[2] * depth }
+  const positions = clean.length ? stationPositions(clean) : []
+  return {
+    holeAt(depth) {
+      if (clean.length === 0 || !validDepth(depth)) return undefined
+      return vecToDirection(tangentAt(clean, depth))
+    },
+    positionAt(depth) {
+      if (clean.length === 0 || !validDepth(depth)) return undefined
+      const i = segmentIndex(clean, depth)
+      if (i < 0) {
+        const t = clean[0].t
+        return { east: t[0] * depth, north: t[1] * depth, down: -t[2] * depth }
+      }
+      const p = positions[i]
+      const a = clean[i]
+      const length = depth - a.depth
+      const step: Vec3 =
+        i === clean.length - 1
+          ? [a.t[0] * length, a.t[1] * length, a.t[2] * length]
+          : minimumCurvatureStep(a.t, tangentAt(clean, depth), length)
+      return { east: p[0] + step[0], north: p[1] + step[1], down: -(p[2] + step[2]) }
+    },
   }
-  const positions = stationPositions(clean.slice(0, i + 1))
-  const p = positions[i]
-  const a = clean[i]
-  const step =
-    i === clean.length - 1
-      ? ([
-          a.t[0] * (depth - a.depth),
-          a.t[1] * (depth - a.depth),
-          a.t[2] * (depth - a.depth),
-        ] as Vec3)
-      : minimumCurvatureStep(a.t, tangentAt(clean, depth), depth - a.depth)
-  return { east: p[0] + step[0], north: p[1] + step[1], down: -(p[2] + step[2]) }
 }

@@ -48,17 +48,15 @@ const [hole] = await db
     finalDepth: 1100,
   })
   .returning()
-await db
-  .insert(surveyStations)
-  .values(
-    Array.from({ length: 12 }, (_, i) => ({
-      holeId: hole.id,
-      depth: i * 100,
-      azimuth: 10 + i,
-      azimuthEntered: 10 + i,
-      plunge: 60 - i,
-    })),
-  )
+await db.insert(surveyStations).values(
+  Array.from({ length: 12 }, (_, i) => ({
+    holeId: hole.id,
+    depth: i * 100,
+    azimuth: 10 + i,
+    azimuthEntered: 10 + i,
+    plunge: 60 - i,
+  })),
+)
 
 const lines = ['depth,type,alpha,beta,jrc,comment']
 for (let i = 0; i < N; i++)

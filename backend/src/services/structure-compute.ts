@@ -1,8 +1,7 @@
 import {
   coreToPlane,
-  holeAt,
   poleOf,
-  positionAt,
+  prepareSurvey,
   terzaghiWeight,
   type Line,
   type Plane,
@@ -98,13 +97,14 @@ export function computeStructures(
   items: readonly StructureInputs[],
 ): StructureComputed[] {
   const lastStation = ctx.stations.length ? ctx.stations[ctx.stations.length - 1].depth : -Infinity
+  const survey = prepareSurvey(ctx.stations)
   const previousBeta = new Map<string, number>()
   return items.map((s) => {
     const flags: StructureFlag[] = []
     let hole: Line = ctx.planned
     if (ctx.stations.length === 0) flags.push('no-survey')
     else {
-      hole = holeAt(ctx.stations, s.depth) ?? ctx.planned
+      hole = survey.holeAt(s.depth) ?? ctx.planned
       if (s.depth > lastStation) flags.push('beyond-survey')
     }
     if (Math.abs(hole.plunge) >= ctx.steepThresholdDeg) flags.push('steep-hole')

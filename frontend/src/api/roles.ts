@@ -1,0 +1,23 @@
+import { projectRoles, type ProjectRole } from './types'
+
+/** Rank in the role ladder viewer < logger < engineer < lead; -1 for no role. */
+export function roleRank(role: ProjectRole | null | undefined): number {
+  return role ? projectRoles.indexOf(role) : -1
+}
+
+/** True when `role` is at least `minimum`. */
+export function roleAtLeast(role: ProjectRole | null | undefined, minimum: ProjectRole): boolean {
+  return roleRank(role) >= roleRank(minimum)
+}
+
+/** A global admin counts as lead in every project. */
+export function effectiveRole(isAdmin: boolean, role: ProjectRole | null): ProjectRole | null {
+  return isAdmin ? 'lead' : role
+}
+
+export const roleLabels: Record<ProjectRole, string> = {
+  viewer: 'Viewer',
+  logger: 'Logger',
+  engineer: 'Engineer',
+  lead: 'Lead',
+}

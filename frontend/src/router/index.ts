@@ -1,0 +1,78 @@
+import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
+import { projectRoles } from '../api/types'
+import { useAuthStore } from '../stores/auth'
+import { decideAccess, type RouteRole } from './access'
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Open without signing in. */
+    public?: boolean
+    /** Roles allowed in the route's project (global admins always pass). */
+    roles?: readonly RouteRole[]
+    title?: string
+  }
+}
+
+const members = projectRoles
+
+export const routes: RouteRecordRaw[] = [
+  { path: '/', redirect: { name: 'projects' } },
+  {
+    path: '/sign-in',
+    name: 'sign-in',
+    component: () => import('../views/SignInView.vue'),
+    meta: { public: true, title: 'Sign in' },
+  },
+  {
+    path: '/projects',
+    name: 'projects',
+    component: () => import('../views/ProjectsView.vue'),
+    meta: { title: 'Projects' },
+  },
+  {
+    path: '/projects/:projectId',
+    name: 'project',
+    component: () => import('../views/ProjectHomeView.vue'),
+    props: true,
+    meta: { roles: members, title: 'Project' },
+  },
+  {
+    path: '/projects/:projectId/holes/:holeId',
+    name: 'hole',
+    component: () => import('../views/HoleView.vue'),
+    props: true,
+    meta: { roles: members, title: 'Hole' },
+  },
+  {
+    path: '/admin/users',
+    name: 'admin-users',
+    component: () => import('../views/AdminUsersView.vue'),
+    meta: { roles: ['admin'], title: 'Users' },
+  },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('../views/NotFoundView.vue'),
+    meta: { title: 'Not found' },
+  },
+]
+
+export const router = createRouter({
+  history: createWebHistory(),
+  routes,
+  scrollBehavior: () => ({ top: 0 }),
+})
+
+router.beforeEach(async (to) => {
+  const auth = useAuthStore()
+  try {
+    await auth.ensureLoaded()
+  } catch {
+    // Server unreachable: fall through as signed out; the sign-in page reports the failure.
+  }
+  return decideAccess(to, auth)
+})
+
+router.afterEach((to) => {
+  document.title = to.meta.title ? `${to.meta.title} · Downdip` : 'Downdip'
+})
