@@ -138,7 +138,7 @@ export function computeStructures(
     if (weight !== undefined && weight >= TERZAGHI_CAP) flags.push('blind-zone')
     const pole = plane ? poleOf(plane) : undefined
     const at = ctx.stations.length
-      ? positionAt(ctx.stations, s.depth)
+      ? survey.positionAt(s.depth)
       : plannedOffset(ctx.planned, s.depth)
     return {
       dip: plane?.dip ?? null,
