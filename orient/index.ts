@@ -61,3 +61,11 @@ export type { CoreRun, RqdClass, RunFlag, RunMetrics } from './rqd'
 export { kinematicChecks } from './kinematic'
 export type { KinematicResult, PairVerdict, PlaneVerdict, WedgePair } from './kinematic'
 export type { KinematicSettings, Verdict, WedgeVerdict } from './kinematic-rules'
+
+export { computeStructures, structureFlags } from './logged-structures'
+export type {
+  ComputeContext,
+  StructureComputed,
+  StructureFlag,
+  StructureInputs,
+} from './logged-structures'

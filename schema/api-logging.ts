@@ -1,33 +1,18 @@
 /** Request schemas for core runs and structures, shared by the API, CSV imports and the entry grid. */
 import { z } from 'zod'
-import { markConfidences, structureTypes } from './logging'
+import {
+  confidences,
+  markConfidences,
+  persistenceClasses,
+  roughnessClasses,
+  structureStates,
+  structureTypes,
+  weatheringGrades,
+} from './vocabulary'
 import { referenceLines } from './projects'
 
 const depth = z.number().min(0).max(5000)
 const version = z.number().int().positive()
-
-/** ISRM (1978) roughness profile classes I–IX. */
-export const roughnessClasses = ['I', 'II', 'III', 'IV', 'V', 'VI', 'VII', 'VIII', 'IX'] as const
-/** ISRM (1978) persistence classes; from core it cannot be measured: "not determined". */
-export const persistenceClasses = [
-  'not determined',
-  'very low',
-  'low',
-  'medium',
-  'high',
-  'very high',
-] as const
-/** ISRM (1978) weathering grades of the wall rock. */
-export const weatheringGrades = [
-  'fresh',
-  'slightly',
-  'moderately',
-  'highly',
-  'completely',
-  'residual soil',
-] as const
-export const structureStates = ['open', 'closed', 'healed'] as const
-export const confidences = ['high', 'medium', 'low'] as const
 
 export const RunFields = z
   .object({
@@ -133,26 +118,3 @@ export const StructureUpdateBody = z.object(structureFields).partial().extend({ 
 export type RunInputT = z.infer<typeof RunInput>
 export type StructureInputT = z.infer<typeof StructureInput>
 export type StructureUpdate = z.infer<typeof StructureUpdateBody>
-
-/** Two-letter keyboard codes of our own for structure types; the API always uses the full words. */
-export const structureTypeCodes: Record<string, (typeof structureTypes)[number]> = {
-  jt: 'joint',
-  bd: 'bedding',
-  fo: 'foliation',
-  fa: 'fault',
-  vn: 'vein',
-  sh: 'shear',
-  ct: 'contact',
-  cv: 'cleavage',
-  bz: 'broken-zone',
-}
-
-/** A type as typed or imported (word, code, any case, "broken zone") → the API word, or undefined. */
-export function parseStructureType(text: string): (typeof structureTypes)[number] | undefined {
-  const t = text
-    .trim()
-    .toLowerCase()
-    .replace(/[\s_]+/g, '-')
-  if ((structureTypes as readonly string[]).includes(t)) return t as (typeof structureTypes)[number]
-  return structureTypeCodes[t]
-}

@@ -15,8 +15,8 @@ import { holes } from './holes'
 import { referenceLine } from './projects'
 import { users } from './users'
 import { imports } from './imports'
+import { markConfidences, structureSources, structureTypes } from './vocabulary'
 
-export const markConfidences = ['good', 'fair', 'poor', 'none'] as const
 export const markConfidence = pgEnum('mark_confidence', markConfidences)
 
 /** A drilled core run, [fromDepth, toDepth) in metres along hole. */
@@ -45,18 +45,6 @@ export const coreRuns = pgTable(
   ],
 )
 
-export const structureTypes = [
-  'joint',
-  'bedding',
-  'foliation',
-  'fault',
-  'vein',
-  'shear',
-  'contact',
-  'cleavage',
-  'broken-zone',
-] as const
-export const structureSources = ['core', 'image', 'true'] as const
 export const structureType = pgEnum('structure_type', structureTypes)
 export const structureSource = pgEnum('structure_source', structureSources)
 

@@ -3,7 +3,7 @@ import { pipeline } from 'node:stream/promises'
 import type { PoolClient } from 'pg'
 import { from as copyFrom } from 'pg-copy-streams'
 import type { StructureInputT } from '../../../schema/index'
-import type { StructureComputed } from '../services/structure-compute'
+import type { StructureComputed } from '../../../orient/index'
 
 /** Columns written by COPY, in order; everything else takes its default. */
 const columns = [

@@ -17,7 +17,7 @@ import { analyseCsv, type Analysis, type CsvImportKind } from '../imports/analys
 import { rowErrorDetails } from '../imports/csv-rows'
 import { copyStructures } from '../imports/copy-structures'
 import { audit } from './audit'
-import { computeStructures } from './structure-compute'
+import { computeStructures } from '../../../orient/index'
 import { loadComputeContext } from './structure-context'
 import { recomputeStructures } from './structures'
 import { replaceRunsIn } from './runs'

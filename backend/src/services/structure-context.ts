@@ -1,7 +1,7 @@
 import { and, asc, eq, gt, lte, sql } from 'drizzle-orm'
 import { coreRuns, intervals, surveyStations, type Hole, type Project } from '../../../schema/index'
 import type { Executor } from '../db/client'
-import type { ComputeContext } from './structure-compute'
+import type { ComputeContext } from '../../../orient/index'
 
 /** What computing a hole's structures needs: project conventions, survey, runs. */
 export async function loadComputeContext(

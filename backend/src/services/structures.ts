@@ -12,7 +12,7 @@ import type { Db, Executor, Tx } from '../db/client'
 import { forbidden, notFound, staleVersion } from '../http/errors'
 import { roleAtLeast } from '../auth/guards'
 import { audit } from './audit'
-import { computeStructures, type StructureInputs } from './structure-compute'
+import { computeStructures, type StructureInputs } from '../../../orient/index'
 import { affectedRange, loadComputeContext, lockedAt } from './structure-context'
 
 export const listStructures = (db: Executor, holeId: number) =>

@@ -1,4 +1,4 @@
-import type { LasProblem } from './types'
+import type { ProblemLog } from './types'
 
 interface DeclaredIndex {
   start: number | null
@@ -11,7 +11,7 @@ interface DeclaredIndex {
  * Compares the depths read with STRT, STOP and STEP from ~W. Mismatches are warnings, not
  * refusals: the samples are what the tool recorded. STEP 0 means irregular sampling (LAS 2.0).
  */
-export function checkIndex(depths: Float64Array, declared: DeclaredIndex, problems: LasProblem[]) {
+export function checkIndex(depths: Float64Array, declared: DeclaredIndex, problems: ProblemLog) {
   const first = depths[0]
   const last = depths[depths.length - 1]
   const { start, stop, step } = declared

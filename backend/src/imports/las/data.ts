@@ -1,6 +1,5 @@
-import { isNumericText } from './header-line'
 import { LineCursor } from './text'
-import { tokenize } from './tokenize'
+import { parseDecimal, tokenize } from './tokenize'
 import type { LasDelimiter, LasProblem } from './types'
 
 export interface DataRequest {
@@ -39,6 +38,7 @@ export function readData(req: DataRequest): DataResult {
   }
   const columns = Array.from({ length: n }, () => new Float64Array(capacity))
   const row = new Float64Array(n)
+  const values = new Float64Array(n)
   const errors: DataResult['errors'] = []
   let emptyFields = 0
   let rows = 0
@@ -72,26 +72,25 @@ export function readData(req: DataRequest): DataResult {
     lastDataLine = cursor.number
     tokens.length = 0
     emptyFields += tokenize(text, first, cursor.end, req.delimiter, tokens)
-    let bad = false
-    for (let t = 0; t < tokens.length; t += 2) {
-      const a = tokens[t]
-      const b = tokens[t + 1]
-      if (a < b && !isNumericText(text, a, b)) {
-        fail(
-          cursor.number,
-          `Text in the data: "${text.slice(a, Math.min(b, a + 24))}" is not a number.`,
-        )
-        bad = true
-        break
-      }
-    }
-    if (bad) continue
     const count = tokens.length / 2
-    const value = (t: number) => {
+    const parsed = Math.min(count, n)
+    let bad = -1
+    for (let t = 0; t < parsed; t++) {
       const a = tokens[2 * t]
       const b = tokens[2 * t + 1]
-      const v = a < b ? Number(text.slice(a, b)) : NaN
-      return v === nullValue ? NaN : v
+      // an empty field (TAB/COMMA) is absent; anything else must be a number
+      const v = a < b ? parseDecimal(text, a, b) : NaN
+      if (a < b && Number.isNaN(v)) {
+        bad = t
+        break
+      }
+      values[t] = v === nullValue ? NaN : v
+    }
+    if (bad >= 0) {
+      const a = tokens[2 * bad]
+      const shown = text.slice(a, Math.min(tokens[2 * bad + 1], a + 24))
+      fail(cursor.number, `Text in the data: "${shown}" is not a number.`)
+      continue
     }
     if (!req.wrap) {
       if (count !== n) {
@@ -99,7 +98,7 @@ export function readData(req: DataRequest): DataResult {
         fail(cursor.number, `This line has ${count} values; the ~C section defines ${n} curves.`)
         continue
       }
-      for (let t = 0; t < n; t++) row[t] = value(t)
+      row.set(values)
       commit(cursor.number)
       continue
     }
@@ -108,14 +107,14 @@ export function readData(req: DataRequest): DataResult {
         fail(cursor.number, 'Wrapped data (WRAP YES) must have the depth alone on its line.')
         continue
       }
-      row[0] = value(0)
+      row[0] = values[0]
       filled = 1
       recordLine = cursor.number
     } else if (filled + count > n) {
       fail(cursor.number, `The sample starting at line ${recordLine} has more than ${n} values.`)
       filled = 0
     } else {
-      for (let t = 0; t < count; t++) row[filled + t] = value(t)
+      for (let t = 0; t < count; t++) row[filled + t] = values[t]
       filled += count
     }
     if (filled === n) {

@@ -95,7 +95,7 @@ export function stationsFromDeviation(
     const i = valid[j]
     if (i === last || Math.abs(depths[i] - target) > interval / 2) continue
     last = i
-    const az = ((azimuth[i] % 360) + 360) % 360
+    const az = azimuth[i] >= 0 && azimuth[i] < 360 ? azimuth[i] : ((azimuth[i] % 360) + 360) % 360
     stations.push({
       depth: depths[i],
       azimuth: az,

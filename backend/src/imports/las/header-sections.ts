@@ -1,20 +1,30 @@
 import { headerNumber, splitHeaderLine } from './header-line'
-import type { Section } from './sections'
+import { titleWord, type Section } from './sections'
 import { LineCursor } from './text'
 import {
   refuse,
   type HeaderItem,
   type LasDelimiter,
-  type LasProblem,
   type LasVersion,
+  type ProblemLog,
 } from './types'
+
+/** Real headers have tens of lines (a few thousand for array logs); more is not a LAS header. */
+const MAX_HEADER_LINES = 20_000
 
 /** Non-blank, non-comment lines of a section body with their line numbers. */
 export function* bodyLines(text: string, s: Section): Generator<{ line: string; n: number }> {
   const cursor = new LineCursor(text, s.bodyStart, s.bodyEnd, s.bodyFirstLine)
+  let count = 0
   while (cursor.next()) {
     const first = cursor.firstNonBlank()
     if (first === cursor.end || text.charCodeAt(first) === 35 /* # */) continue
+    if (++count > MAX_HEADER_LINES) {
+      refuse(
+        cursor.number,
+        `The ~${titleWord(s.title)} section has over ${MAX_HEADER_LINES} lines.`,
+      )
+    }
     yield { line: text.slice(first, cursor.end), n: cursor.number }
   }
 }
@@ -27,7 +37,7 @@ export function readItems(
   text: string,
   s: Section,
   version3: boolean,
-  problems: LasProblem[],
+  problems: ProblemLog,
   curves = false,
 ): HeaderItem[] {
   const items: HeaderItem[] = []
@@ -50,7 +60,7 @@ export interface VersionInfo {
 }
 
 /** ~V: VERS (2.0 or 3.0 only), WRAP (YES/NO), DLM (LAS 3.0: SPACE, TAB or COMMA). */
-export function readVersion(text: string, s: Section, problems: LasProblem[]): VersionInfo {
+export function readVersion(text: string, s: Section, problems: ProblemLog): VersionInfo {
   const items = readItems(text, s, false, problems)
   const find = (m: string) => items.find((i) => i.mnemonic.toUpperCase() === m)
   const vers = find('VERS')

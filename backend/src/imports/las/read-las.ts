@@ -7,11 +7,11 @@ import { decodeLas } from './text'
 import { metresPerUnit } from './units'
 import {
   LasReadError,
+  ProblemLog,
   refuse,
   type HeaderItem,
   type LasCurve,
   type LasFile,
-  type LasProblem,
   type LasSectionNote,
 } from './types'
 
@@ -23,7 +23,7 @@ import {
  */
 export function readLas(input: Uint8Array | string): LasFile {
   const text = typeof input === 'string' ? input : decodeLas(input)
-  const problems: LasProblem[] = []
+  const problems = new ProblemLog()
   const sections = scanSections(text)
   const head = sections[0]
   if (sectionKind(head.title, false) !== 'V') {
@@ -44,8 +44,8 @@ export function readLas(input: Uint8Array | string): LasFile {
     if (!v3 && found.A) {
       problems.push({ line: s.line, message: 'A section after ~A (LAS 2.0 puts ~A last).' })
     }
-    if (kind === 'W') wellItems.push(...readItems(text, s, v3, problems))
-    else if (kind === 'P') parameters.push(...readItems(text, s, v3, problems))
+    if (kind === 'W') appendAll(wellItems, readItems(text, s, v3, problems))
+    else if (kind === 'P') appendAll(parameters, readItems(text, s, v3, problems))
     else if (kind === 'O') other = other ? `${other}\n${readOther(text, s)}` : readOther(text, s)
     else if (kind === 'C' || kind === 'A') found[kind] = s
     else {
@@ -127,12 +127,12 @@ export function readLas(input: Uint8Array | string): LasFile {
     metresPerDepthUnit: metres,
     sampleCount: result.rows,
     otherSections,
-    problems,
+    problems: problems.toArray(),
   }
 }
 
 /** Two curves named alike (GR twice) would clash by mnemonic: the later ones become GR:2, GR:3. */
-function renameDuplicates(items: HeaderItem[], problems: LasProblem[]) {
+function renameDuplicates(items: HeaderItem[], problems: ProblemLog) {
   const seen = new Map<string, number>()
   for (const item of items) {
     const key = item.mnemonic.toUpperCase()
@@ -152,4 +152,9 @@ function lineCount(text: string): number {
   let n = 1
   for (let i = text.indexOf('\n'); i >= 0 && i < text.length - 1; i = text.indexOf('\n', i + 1)) n++
   return n
+}
+
+/** push(...items) overflows the stack past ~100,000 items; a junk header can have millions. */
+function appendAll<T>(target: T[], items: T[]) {
+  for (const item of items) target.push(item)
 }

@@ -13,6 +13,9 @@ export interface Section {
   bodyFirstLine: number
 }
 
+/** LAS 3.0 files hold a few data sets of three sections each; thousands is not a LAS file. */
+const MAX_SECTIONS = 1000
+
 /** LAS 3.0 section names (CWLS LAS 3.0, section 5) that map onto the LAS 2.0 log sections. */
 const V3_NAMES: Record<string, SectionKind> = {
   V: 'V',
@@ -66,6 +69,8 @@ export function scanSections(text: string): Section[] {
     if (first === cursor.end) continue
     const c = text.charCodeAt(first)
     if (c === 126 /* ~ */) {
+      if (sections.length >= MAX_SECTIONS)
+        refuse(cursor.number, `More than ${MAX_SECTIONS} sections.`)
       const open = sections.at(-1)
       if (open) open.bodyEnd = cursor.start
       sections.push({

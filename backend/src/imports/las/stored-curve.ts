@@ -54,6 +54,9 @@ export interface CurveToStore extends StoredSamples {
   mnemonic: string
   unit: string
   description: string
+  /** float8[] text of `depths` and `values`, ready to bind (see float8ArrayLiteral). */
+  depthsLiteral: string
+  valuesLiteral: string
 }
 
 export interface CurveChoice {
@@ -86,12 +89,25 @@ export function curvesToStore(
   const depths = depthsInMetres(file, depthShift)
   const curves: CurveToStore[] = []
   const skipped: string[] = []
+  // most curves span the same samples: write their shared depth array once
+  const depthText = new Map<string, string>()
   for (const c of available) {
     if (!names.includes(c.mnemonic)) continue
     const samples = storedSamples(depths, c.values)
-    if (samples)
-      curves.push({ ...samples, mnemonic: c.mnemonic, unit: c.unit, description: c.description })
-    else skipped.push(c.mnemonic)
+    if (!samples) {
+      skipped.push(c.mnemonic)
+      continue
+    }
+    const key = `${samples.minDepth}:${samples.maxDepth}:${samples.depths.length}`
+    if (!depthText.has(key)) depthText.set(key, float8ArrayLiteral(samples.depths))
+    curves.push({
+      ...samples,
+      mnemonic: c.mnemonic,
+      unit: c.unit,
+      description: c.description,
+      depthsLiteral: depthText.get(key)!,
+      valuesLiteral: float8ArrayLiteral(samples.values),
+    })
   }
   return { curves, skipped, unknown }
 }

@@ -1,3 +1,4 @@
+import { isNumericText } from './header-line'
 import type { LasDelimiter } from './types'
 
 /**
@@ -40,3 +41,40 @@ export function tokenize(
 }
 
 const isBlank = (c: number) => c === 32 || c === 9
+
+const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15]
+
+/**
+ * The number in `text[a, b)`, or NaN when it is not one. Plain decimals of up to 15 digits take
+ * the fast path m / 10^k: both are exact doubles, so the one correctly rounded division gives the
+ * same double as Number() (Clinger 1990, "How to read floating point numbers accurately").
+ * Anything else (exponents, long mantissas) goes through Number() after a character check.
+ */
+export function parseDecimal(text: string, a: number, b: number): number {
+  let i = a
+  const first = text.charCodeAt(i)
+  const negative = first === 45
+  if (negative || first === 43) i++
+  let mantissa = 0
+  let digits = 0
+  let point = -1
+  for (; i < b; i++) {
+    const c = text.charCodeAt(i)
+    if (c >= 48 && c <= 57) {
+      mantissa = mantissa * 10 + (c - 48)
+      digits++
+    } else if (c === 46 && point < 0) point = digits
+    else return slowNumber(text, a, b)
+  }
+  if (digits === 0) return NaN
+  if (digits > 15) return slowNumber(text, a, b)
+  const scale = point < 0 ? 0 : digits - point
+  const value = scale === 0 ? mantissa : mantissa / POW10[scale]
+  return negative ? -value : value
+}
+
+function slowNumber(text: string, a: number, b: number): number {
+  if (!isNumericText(text, a, b)) return NaN
+  const value = Number(text.slice(a, b))
+  return Number.isFinite(value) ? value : NaN
+}

@@ -77,3 +77,25 @@ export class LasReadError extends Error {
 export function refuse(line: number, message: string): never {
   throw new LasReadError([{ line, message }])
 }
+
+/** Warnings kept in full: enough to judge a file, bounded for a junk one. */
+const MAX_PROBLEMS = 100
+
+/** Collects warnings, keeping the first hundred and counting the rest. */
+export class ProblemLog {
+  private readonly list: LasProblem[] = []
+  private dropped = 0
+
+  push(...problems: LasProblem[]): void {
+    for (const p of problems) {
+      if (this.list.length < MAX_PROBLEMS) this.list.push(p)
+      else this.dropped++
+    }
+  }
+
+  toArray(): LasProblem[] {
+    const more =
+      this.dropped > 0 ? [{ line: null, message: `${this.dropped} more warnings not listed.` }] : []
+    return [...this.list, ...more]
+  }
+}

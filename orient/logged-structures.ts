@@ -1,11 +1,13 @@
-import {
-  coreToPlane,
-  poleOf,
-  prepareSurvey,
-  terzaghiWeight,
-  type Line,
-  type Plane,
-} from '../../../orient/index'
+import { coreToPlane } from './core'
+import { poleOf } from './planes'
+import { prepareSurvey } from './survey-interpolate'
+import { terzaghiWeight } from './terzaghi'
+import type { Line, Plane } from './types'
+
+/**
+ * A logged structure's computed values and quality flags, as the server stores them and the entry
+ * grid previews them while the logger types: one code for both.
+ */
 
 /** Why a computed orientation deserves a second look; shown beside the value, never instead of it. */
 export const structureFlags = [
