@@ -44,6 +44,20 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: members, title: 'Hole' },
   },
   {
+    path: '/projects/:projectId/holes/:holeId/depth',
+    name: 'hole-depth',
+    component: () => import('../views/DepthView.vue'),
+    props: true,
+    meta: { roles: members, title: 'Depth view' },
+  },
+  {
+    path: '/projects/:projectId/holes/:holeId/intervals/:intervalId',
+    name: 'interval',
+    component: () => import('../views/IntervalView.vue'),
+    props: true,
+    meta: { roles: members, title: 'Interval' },
+  },
+  {
     path: '/admin/users',
     name: 'admin-users',
     component: () => import('../views/AdminUsersView.vue'),
