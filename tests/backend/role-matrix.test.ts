@@ -2,11 +2,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { eq } from 'drizzle-orm'
 import {
   coreRuns,
+  domains,
   holes,
   imports,
+  intervals,
   memberships,
   projects,
   structures,
+  structureSets,
   surveyStations,
   users,
 } from '../../schema/index'
@@ -112,6 +115,31 @@ const freshImport = async (fx: Fixture) => {
     .returning()
   return i
 }
+const freshInterval = async (fx: Fixture) => {
+  const from = 10 * unique()
+  const [i] = await fx.db
+    .insert(intervals)
+    .values({
+      holeId: fx.holeId,
+      name: `I${from}`,
+      fromDepth: from,
+      toDepth: from + 5,
+      faceDip: 70,
+      faceDipDirection: 190,
+      frictionDeg: 30,
+    })
+    .returning()
+  return i
+}
+const freshSet = async (fx: Fixture) => {
+  const i = await freshInterval(fx)
+  const [set] = await fx.db
+    .insert(structureSets)
+    .values({ intervalId: i.id, name: 'S', centreTrend: 10, centrePlunge: 40, coneAngle: 20 })
+    .returning()
+  return { interval: i, set }
+}
+const I = (fx: Fixture, id: number) => `${H(fx)}/intervals/${id}`
 const station = () => ({ depth: 500 + unique(), azimuth: 12, plunge: 58, azimuthReference: 'true' })
 
 const cases: RouteCase[] = [
@@ -399,6 +427,153 @@ const cases: RouteCase[] = [
     need: 'logger',
     ok: 200,
     prepare: async (fx) => ({ path: `${H(fx)}/imports/${(await freshImport(fx)).id}/commit` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/domains',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${P(fx)}/domains` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/domains',
+    need: 'engineer',
+    ok: 201,
+    prepare: async (fx) => ({ path: `${P(fx)}/domains`, body: { name: `Domain ${unique()}` } }),
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/domains/:domainId',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => {
+      const [d] = await fx.db
+        .insert(domains)
+        .values({ projectId: fx.projectId, name: `D${unique()}` })
+        .returning()
+      return { path: `${P(fx)}/domains/${d.id}`, body: { description: 'edited' } }
+    },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/intervals',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/intervals` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/intervals',
+    need: 'engineer',
+    ok: 201,
+    prepare: async (fx) => {
+      const from = 10 * unique()
+      return {
+        path: `${H(fx)}/intervals`,
+        body: { name: `N${from}`, fromDepth: from, toDepth: from + 5 },
+      }
+    },
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => {
+      const i = await freshInterval(fx)
+      return { path: I(fx, i.id), body: { version: i.version, name: 'renamed' } }
+    },
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId',
+    need: 'engineer',
+    ok: 204,
+    prepare: async (fx) => {
+      const i = await freshInterval(fx)
+      return { path: `${I(fx, i.id)}?version=${i.version}` }
+    },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/analysis',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${I(fx, (await freshInterval(fx)).id)}/analysis` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/sets/suggest',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${I(fx, (await freshInterval(fx)).id)}/sets/suggest` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/sets',
+    need: 'engineer',
+    ok: 201,
+    prepare: async (fx) => ({
+      path: `${I(fx, (await freshInterval(fx)).id)}/sets`,
+      body: { name: 'J1', centreTrend: 10, centrePlunge: 40, coneAngle: 15 },
+    }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/sets/cluster',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => {
+      const i = await freshInterval(fx)
+      await fx.db.insert(structures).values(
+        [0, 1, 2].map((k) => ({
+          holeId: fx.holeId,
+          depth: i.fromDepth + k,
+          type: 'joint' as const,
+          alpha: 40,
+          beta: 10,
+          poleTrend: 10 + k,
+          polePlunge: 40,
+          dip: 50,
+          dipDirection: 190 + k,
+        })),
+      )
+      return { path: `${I(fx, i.id)}/sets/cluster`, body: { k: 1 } }
+    },
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/sets/:setId',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => {
+      const { interval, set } = await freshSet(fx)
+      return {
+        path: `${I(fx, interval.id)}/sets/${set.id}`,
+        body: { version: set.version, coneAngle: 25 },
+      }
+    },
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/sets/:setId',
+    need: 'engineer',
+    ok: 204,
+    prepare: async (fx) => {
+      const { interval, set } = await freshSet(fx)
+      return { path: `${I(fx, interval.id)}/sets/${set.id}` }
+    },
+  },
+  {
+    method: 'put',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/sets/:setId/members',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => {
+      const { interval, set } = await freshSet(fx)
+      return { path: `${I(fx, interval.id)}/sets/${set.id}/members`, body: { structureIds: [] } }
+    },
   },
   {
     method: 'get',

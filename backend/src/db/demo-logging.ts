@@ -21,6 +21,9 @@ interface SetSpec {
   weight: number
 }
 
+/** The demo's design face (the deepened north wall) and friction angle. */
+export const demoFace = { faceDip: 70, faceDipDirection: 190, frictionDeg: 30 }
+
 export const demoDomains: { name: string; from: number; to: number; sets: SetSpec[] }[] = [
   {
     name: 'Upper limestone',

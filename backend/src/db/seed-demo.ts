@@ -1,6 +1,8 @@
 import { and, asc, eq } from 'drizzle-orm'
 import {
   coreRuns,
+  domains,
+  intervals,
   holes,
   memberships,
   projects,
@@ -10,7 +12,8 @@ import {
   users,
 } from '../../../schema/index'
 import { recomputeStructures } from '../services/structures'
-import { demoLogging } from './demo-logging'
+import { demoDomains, demoFace, demoLogging } from './demo-logging'
+import { replaceWithClusters } from '../services/sets'
 import { hashPassword } from '../auth/passport'
 import { stationRow } from '../services/survey'
 import { declinationFor } from '../services/declination'
@@ -62,6 +65,7 @@ export async function seedDemo(db: Db): Promise<void> {
       // Only a hole created now gets its demo survey: an existing hole keeps its own.
       if (inserted.length === 1) await seedSurvey(tx, project, inserted[0], demo)
       await once(tx, `demo:${demo.name}:logging`, () => seedLogging(tx, project, demo))
+      await once(tx, `demo:${demo.name}:intervals`, () => seedIntervals(tx, project, demo))
     }
   })
 }
@@ -139,4 +143,38 @@ async function seedSurvey(
     .update(holes)
     .set({ surveyRevision: 1 })
     .where(and(eq(holes.id, hole.id), eq(holes.projectId, project.id)))
+}
+
+/** Intervals per demo domain with the design face, friction and sets found by clustering. */
+async function seedIntervals(tx: Tx, project: typeof projects.$inferSelect, demo: DemoHole) {
+  const [hole] = await tx
+    .select()
+    .from(holes)
+    .where(and(eq(holes.projectId, project.id), eq(holes.name, demo.name)))
+  if (!hole) return
+  for (const domain of demoDomains) {
+    const from = domain.from
+    const to = Math.min(domain.to, hole.finalDepth)
+    if (to - from < 10) continue
+    await tx
+      .insert(domains)
+      .values({ projectId: project.id, name: domain.name })
+      .onConflictDoNothing()
+    const [d] = await tx
+      .select()
+      .from(domains)
+      .where(and(eq(domains.projectId, project.id), eq(domains.name, domain.name)))
+    const [interval] = await tx
+      .insert(intervals)
+      .values({
+        holeId: hole.id,
+        domainId: d.id,
+        name: `${demo.name.slice(-4)} ${domain.name.toLowerCase()}`,
+        fromDepth: from,
+        toDepth: to,
+        ...demoFace,
+      })
+      .returning()
+    await replaceWithClusters(tx, interval, domain.sets.length)
+  }
 }

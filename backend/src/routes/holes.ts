@@ -14,6 +14,7 @@ import { notFound } from '../http/errors'
 import { logsRouter } from './logs'
 import { runsRouter } from './runs'
 import { importsRouter, type ImportDeps } from './imports'
+import { intervalsRouter } from './intervals'
 import { structuresRouter } from './structures'
 import { createHole, deleteHole, getHole, listHoles, updateHole } from '../services/holes'
 import {
@@ -42,6 +43,7 @@ export function holesRouter(deps: ImportDeps): Router {
   router.use('/:holeId/runs', runsRouter(db))
   router.use('/:holeId/structures', structuresRouter(db))
   router.use('/:holeId/imports', importsRouter(deps))
+  router.use('/:holeId/intervals', intervalsRouter(db))
 
   router.get('/', async (_req, res) => {
     res.json({ data: await listHoles(db, projectLocals(res).project.id) })

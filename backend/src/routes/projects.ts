@@ -10,6 +10,7 @@ import type { Db } from '../db/client'
 import { projectLocals, requireAdmin, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
 import { holesRouter } from './holes'
+import { domainsRouter } from './domains'
 import type { ImportDeps } from './imports'
 import {
   addMember,
@@ -42,6 +43,7 @@ export function projectRouter(deps: ImportDeps): Router {
   const { db } = deps
   const router = Router({ mergeParams: true })
   router.use('/holes', holesRouter(deps))
+  router.use('/domains', domainsRouter(db))
   router.get('/', (_req, res) => {
     const { project, role } = projectLocals(res)
     res.json({ data: { ...project, role } })

@@ -25,7 +25,7 @@ export interface DataResult {
 const MAX_ERRORS = 20
 
 /**
- * Reads ~A / ~Log_Data: numbers only (CWLS LAS 2.0, section 5.7), NULL → NaN. Unwrapped: one
+ * Reads ~A / ~Log_Data: numbers only (CWLS LAS 2.0), NULL → NaN. Unwrapped: one
  * sample per line with one value per curve. Wrapped: the depth alone on a line, the other values
  * on the lines after it. Depths must be non-NULL and strictly increasing or decreasing. One pass.
  */

@@ -3,7 +3,7 @@ import type { HeaderItem } from './types'
 const isBlank = (c: number) => c === 32 || c === 9
 
 /**
- * Splits `MNEM.UNIT  VALUE : DESCRIPTION` as CWLS LAS 2.0 (section 3) prescribes: the mnemonic ends
+ * Splits `MNEM.UNIT  VALUE : DESCRIPTION` as the CWLS LAS 2.0 standard prescribes: the mnemonic ends
  * at the first dot, the unit at the first blank after it (so `OHM-M` and `.1IN` survive, and a
  * single space is enough), the value at the LAST colon (so `12:30:00` survives). LAS 3.0 adds a
  * trailing `{format}` and `| association` after the description, cut off first because a format

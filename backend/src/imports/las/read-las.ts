@@ -22,7 +22,9 @@ import {
  * warnings in `problems` for what it read around.
  */
 export function readLas(input: Uint8Array | string): LasFile {
-  const text = typeof input === 'string' ? input : decodeLas(input)
+  let text = typeof input === 'string' ? input : decodeLas(input)
+  // a byte-order mark is not content (TextDecoder drops it from bytes; strings may keep it)
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1)
   const problems = new ProblemLog()
   const sections = scanSections(text)
   const head = sections[0]

@@ -16,7 +16,7 @@ export interface Section {
 /** LAS 3.0 files hold a few data sets of three sections each; thousands is not a LAS file. */
 const MAX_SECTIONS = 1000
 
-/** LAS 3.0 section names (CWLS LAS 3.0, section 5) that map onto the LAS 2.0 log sections. */
+/** LAS 3.0 section names (CWLS LAS 3.0) that map onto the LAS 2.0 log sections. */
 const V3_NAMES: Record<string, SectionKind> = {
   V: 'V',
   VERSION: 'V',

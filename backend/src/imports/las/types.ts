@@ -1,4 +1,4 @@
-/** One header line `MNEM.UNIT  VALUE : DESCRIPTION` (CWLS LAS 2.0, section 3; LAS 3.0 adds {format}). */
+/** One header line `MNEM.UNIT  VALUE : DESCRIPTION` (CWLS LAS 2.0; LAS 3.0 adds {format}). */
 export interface HeaderItem {
   mnemonic: string
   unit: string

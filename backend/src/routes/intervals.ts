@@ -1,0 +1,146 @@
+import { Router, type Request, type Response } from 'express'
+import { z } from 'zod'
+import {
+  AnalysisQuery,
+  ClusterBody,
+  IdParam,
+  IntervalCreateBody,
+  IntervalUpdateBody,
+  MembersBody,
+  SetCreateBody,
+  SetUpdateBody,
+  SuggestQuery,
+} from '../../../schema/index'
+import type { Db } from '../db/client'
+import { requireRole } from '../auth/guards'
+import { notFound } from '../http/errors'
+import { inputOf, validate } from '../http/validate'
+import { holeOf } from './holes'
+import { analyseInterval } from '../services/analysis'
+import {
+  createInterval,
+  deleteInterval,
+  getInterval,
+  listIntervals,
+  updateInterval,
+} from '../services/intervals'
+import {
+  clusterInterval,
+  createConeSet,
+  deleteSet,
+  setMembersOf,
+  suggestSetCount,
+  updateSet,
+} from '../services/sets'
+
+const IntervalParams = IdParam('intervalId')
+const SetParams = z.object({ setId: z.coerce.number().int().positive() })
+const VersionQuery = z.object({ version: z.coerce.number().int().positive() })
+
+async function intervalOf(db: Db, req: Request, res: Response) {
+  const hole = await holeOf(db, req, res)
+  const id = IntervalParams.safeParse(req.params)
+  if (!id.success) throw notFound('Interval')
+  return { hole, interval: await getInterval(db, hole.id, id.data.intervalId) }
+}
+
+/** /api/projects/:projectId/holes/:holeId/intervals: intervals, their sets and their analysis. */
+export function intervalsRouter(db: Db): Router {
+  const router = Router({ mergeParams: true })
+  const engineer = requireRole('engineer')
+
+  router.get('/', async (req, res) => {
+    const hole = await holeOf(db, req, res)
+    res.json({ data: await listIntervals(db, hole.id) })
+  })
+  router.post('/', engineer, validate({ body: IntervalCreateBody }), async (req, res) => {
+    const hole = await holeOf(db, req, res)
+    const { body } = inputOf(res, { body: IntervalCreateBody })
+    res.status(201).json({ data: await createInterval(db, req.user!.id, hole, body) })
+  })
+  router.get('/:intervalId', async (req, res) => {
+    const { hole, interval } = await intervalOf(db, req, res)
+    res.json({ data: (await listIntervals(db, hole.id)).find((i) => i.id === interval.id) })
+  })
+  router.patch(
+    '/:intervalId',
+    engineer,
+    validate({ body: IntervalUpdateBody }),
+    async (req, res) => {
+      const { hole, interval } = await intervalOf(db, req, res)
+      const { body } = inputOf(res, { body: IntervalUpdateBody })
+      res.json({ data: await updateInterval(db, req.user!.id, hole, interval.id, body) })
+    },
+  )
+  router.delete('/:intervalId', engineer, validate({ query: VersionQuery }), async (req, res) => {
+    const { hole, interval } = await intervalOf(db, req, res)
+    const { query } = inputOf(res, { query: VersionQuery })
+    await deleteInterval(db, req.user!.id, hole, interval.id, query.version)
+    res.status(204).end()
+  })
+  router.get('/:intervalId/analysis', validate({ query: AnalysisQuery }), async (req, res) => {
+    const { interval } = await intervalOf(db, req, res)
+    const { query } = inputOf(res, { query: AnalysisQuery })
+    res.json({ data: await analyseInterval(db, interval, query) })
+  })
+
+  router.get('/:intervalId/sets/suggest', validate({ query: SuggestQuery }), async (req, res) => {
+    const { interval } = await intervalOf(db, req, res)
+    const { query } = inputOf(res, { query: SuggestQuery })
+    res.json({ data: await suggestSetCount(db, interval, query.maxK) })
+  })
+  router.post(
+    '/:intervalId/sets',
+    engineer,
+    validate({ body: SetCreateBody }),
+    async (req, res) => {
+      const { hole, interval } = await intervalOf(db, req, res)
+      const { body } = inputOf(res, { body: SetCreateBody })
+      res.status(201).json({ data: await createConeSet(db, req.user!.id, hole, interval, body) })
+    },
+  )
+  router.post(
+    '/:intervalId/sets/cluster',
+    engineer,
+    validate({ body: ClusterBody }),
+    async (req, res) => {
+      const { hole, interval } = await intervalOf(db, req, res)
+      const { body } = inputOf(res, { body: ClusterBody })
+      res.json({ data: await clusterInterval(db, req.user!.id, hole, interval, body.k) })
+    },
+  )
+  router.patch(
+    '/:intervalId/sets/:setId',
+    engineer,
+    validate({ params: SetParams, body: SetUpdateBody }),
+    async (req, res) => {
+      const { hole, interval } = await intervalOf(db, req, res)
+      const { params, body } = inputOf(res, { params: SetParams, body: SetUpdateBody })
+      res.json({ data: await updateSet(db, req.user!.id, hole, interval, params.setId, body) })
+    },
+  )
+  router.delete(
+    '/:intervalId/sets/:setId',
+    engineer,
+    validate({ params: SetParams }),
+    async (req, res) => {
+      const { hole, interval } = await intervalOf(db, req, res)
+      const { params } = inputOf(res, { params: SetParams })
+      await deleteSet(db, req.user!.id, hole, interval, params.setId)
+      res.status(204).end()
+    },
+  )
+  router.put(
+    '/:intervalId/sets/:setId/members',
+    engineer,
+    validate({ params: SetParams, body: MembersBody }),
+    async (req, res) => {
+      const { hole, interval } = await intervalOf(db, req, res)
+      const { params, body } = inputOf(res, { params: SetParams, body: MembersBody })
+      res.json({
+        data: await setMembersOf(db, req.user!.id, hole, interval, params.setId, body.structureIds),
+      })
+    },
+  )
+  return router
+}

@@ -1,0 +1,74 @@
+/** Request schemas for domains, intervals and sets (the engineer's review). */
+import { z } from 'zod'
+import { structureSources, structureTypes } from './vocabulary'
+
+const depth = z.number().min(0).max(5000)
+const version = z.number().int().positive()
+const azimuth = z.number().min(0).max(360)
+
+export const DomainBody = z
+  .object({ name: z.string().trim().min(1).max(60), description: z.string().max(500).optional() })
+  .strict()
+
+const intervalFields = {
+  name: z.string().trim().min(1).max(60),
+  fromDepth: depth,
+  toDepth: depth,
+  domainId: z.number().int().positive().nullable(),
+  faceDip: z.number().min(0).max(90).nullable(),
+  faceDipDirection: azimuth.nullable(),
+  frictionDeg: z.number().min(0).max(89).nullable(),
+}
+const ordered = (i: { fromDepth?: number; toDepth?: number }) =>
+  i.fromDepth === undefined || i.toDepth === undefined || i.toDepth > i.fromDepth
+
+export const IntervalCreateBody = z
+  .object({
+    ...intervalFields,
+    domainId: intervalFields.domainId.optional(),
+    faceDip: intervalFields.faceDip.optional(),
+    faceDipDirection: intervalFields.faceDipDirection.optional(),
+    frictionDeg: intervalFields.frictionDeg.optional(),
+  })
+  .strict()
+  .refine(ordered, { path: ['toDepth'], message: 'must be greater than fromDepth' })
+export const IntervalUpdateBody = z
+  .object(intervalFields)
+  .partial()
+  .extend({ version })
+  .strict()
+  .refine(ordered, { path: ['toDepth'], message: 'must be greater than fromDepth' })
+
+const list = <T extends readonly [string, ...string[]]>(values: T) =>
+  z
+    .string()
+    .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
+    .pipe(z.array(z.enum(values)))
+    .optional()
+
+export const AnalysisQuery = z
+  .object({
+    weighting: z.enum(['terzaghi', 'none']).default('none'),
+    types: list(structureTypes),
+    sources: list(structureSources),
+    lateralLimit: z.coerce.number().min(0).max(90).default(20),
+    topplingLimit: z.coerce.number().min(0).max(90).default(30),
+  })
+  .strict()
+
+export const SetCreateBody = z
+  .object({
+    name: z.string().trim().min(1).max(40),
+    centreTrend: azimuth,
+    centrePlunge: z.number().min(0).max(90),
+    coneAngle: z.number().gt(0).max(90),
+  })
+  .strict()
+export const SetUpdateBody = SetCreateBody.partial().extend({ version }).strict()
+export const ClusterBody = z.object({ k: z.number().int().min(1).max(12) }).strict()
+export const SuggestQuery = z.object({ maxK: z.coerce.number().int().min(2).max(12).default(6) }).strict()
+export const MembersBody = z.object({ structureIds: z.array(z.number().int().positive()).max(100000) }).strict()
+
+export type IntervalCreate = z.infer<typeof IntervalCreateBody>
+export type IntervalUpdate = z.infer<typeof IntervalUpdateBody>
+export type AnalysisOptions = z.infer<typeof AnalysisQuery>
