@@ -62,10 +62,11 @@ export { kinematicChecks } from './kinematic'
 export type { KinematicResult, PairVerdict, PlaneVerdict, WedgePair } from './kinematic'
 export type { KinematicSettings, Verdict, WedgeVerdict } from './kinematic-rules'
 
-export { computeStructures, structureFlags } from './logged-structures'
+export { computeStructures, storedInputs, structureFlags } from './logged-structures'
 export type {
   ComputeContext,
   StructureComputed,
   StructureFlag,
   StructureInputs,
+  StoredStructure,
 } from './logged-structures'

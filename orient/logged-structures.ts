@@ -2,6 +2,7 @@ import { coreToPlane } from './core'
 import { poleOf } from './planes'
 import { prepareSurvey } from './survey-interpolate'
 import { terzaghiWeight } from './terzaghi'
+import { imagePickToPlane, type ImagePick } from './image-pick'
 import type { Line, Plane } from './types'
 
 /**
@@ -19,6 +20,7 @@ export const structureFlags = [
   'unoriented', // no usable orientation mark (or no beta): alpha only, no dip direction
   'blind-zone', // sub-parallel to the hole: Terzaghi weight capped
   'beta-jump', // beta far from the previous structure of the same type in the run
+  'pick-size', // image pick: sinusoid too tall for the hole (relative dip ≥ 85°) or diameter off the hole's
 ] as const
 export type StructureFlag = (typeof structureFlags)[number]
 
@@ -35,6 +37,8 @@ export interface ComputeContext {
     declinationApplied?: number
   }[]
   /** Sorted by fromDepth. */
+  /** Nominal hole diameter (same unit as image-pick diameters), when known. */
+  holeDiameter?: number
   runs: readonly {
     fromDepth: number
     toDepth: number
@@ -51,8 +55,8 @@ export interface StructureInputs {
   referenceLine?: 'bottom' | 'top' | null
   inputDip?: number | null
   inputDipDirection?: number | null
-  /** Image picks arrive already converted to a plane (at import, with the survey then). */
-  imagePlane?: Plane | null
+  /** Image pick, raw (trough azimuth already referred to true north when north-referenced). */
+  pick?: ImagePick | null
 }
 
 export interface StructureComputed {
@@ -71,6 +75,8 @@ export interface StructureComputed {
 }
 
 const TERZAGHI_CAP = 10
+/** Above this relative dip a sinusoid's height exceeds about 11 hole diameters: not a reliable pick. */
+const MAX_PICK_RELATIVE_DIP = 85
 
 function runAt(runs: ComputeContext['runs'], depth: number) {
   let lo = 0
@@ -135,7 +141,14 @@ export function computeStructures(
       weight = sin * TERZAGHI_CAP <= 1 ? TERZAGHI_CAP : 1 / sin
     } else if (s.source === 'true') {
       plane = { dip: s.inputDip ?? 0, dipDirection: s.inputDipDirection ?? 0 }
-    } else plane = s.imagePlane ?? undefined
+    } else if (s.pick) {
+      plane = imagePickToPlane(s.pick, hole)
+      const relativeDip = Math.atan2(s.pick.amplitude, s.pick.diameter) * (180 / Math.PI)
+      const sizeOff = ctx.holeDiameter
+        ? Math.abs(s.pick.diameter / ctx.holeDiameter - 1) > 0.25
+        : false
+      if (relativeDip >= MAX_PICK_RELATIVE_DIP || sizeOff) flags.push('pick-size')
+    }
     if (plane && s.source !== 'core') weight = terzaghiWeight(plane, hole, TERZAGHI_CAP)
     if (weight !== undefined && weight >= TERZAGHI_CAP) flags.push('blind-zone')
     const pole = plane ? poleOf(plane) : undefined
@@ -178,4 +191,47 @@ function declinationAt(stations: ComputeContext['stations'], depth: number): num
     value = s.declinationApplied ?? 0
   }
   return value
+}
+
+/** A structure as stored (database columns in camelCase), whatever its source. */
+export interface StoredStructure {
+  depth: number
+  type: string
+  source: 'core' | 'true' | 'image'
+  alpha: number | null
+  beta: number | null
+  referenceLine: 'bottom' | 'top' | null
+  inputDip: number | null
+  inputDipDirection: number | null
+  pickAmplitude: number | null
+  pickDiameter: number | null
+  pickTroughAzimuth: number | null
+  pickReference: string | null
+}
+
+/** The inputs computeStructures needs from a stored structure (server recompute and browser alike). */
+export function storedInputs(s: StoredStructure): StructureInputs {
+  const pick =
+    s.source === 'image' &&
+    s.pickAmplitude !== null &&
+    s.pickDiameter !== null &&
+    s.pickTroughAzimuth !== null
+      ? {
+          amplitude: s.pickAmplitude,
+          diameter: s.pickDiameter,
+          troughAzimuth: s.pickTroughAzimuth,
+          reference: s.pickReference === 'north' ? ('north' as const) : ('highside' as const),
+        }
+      : null
+  return {
+    depth: s.depth,
+    type: s.type,
+    source: s.source,
+    alpha: s.alpha,
+    beta: s.beta,
+    referenceLine: s.referenceLine,
+    inputDip: s.inputDip,
+    inputDipDirection: s.inputDipDirection,
+    pick,
+  }
 }

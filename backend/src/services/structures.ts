@@ -12,7 +12,7 @@ import type { Db, Executor, Tx } from '../db/client'
 import { forbidden, notFound, staleVersion } from '../http/errors'
 import { roleAtLeast } from '../auth/guards'
 import { audit } from './audit'
-import { computeStructures, type StructureInputs } from '../../../orient/index'
+import { computeStructures, storedInputs } from '../../../orient/index'
 import { affectedRange, loadComputeContext, lockedAt } from './structure-context'
 
 export const listStructures = (db: Executor, holeId: number) =>
@@ -31,21 +31,6 @@ export function inputColumns(input: Partial<StructureInputT>) {
     ...(dipDirection !== undefined ? { inputDipDirection: dipDirection } : {}),
   }
 }
-
-export const asComputeInput = (s: Structure): StructureInputs => ({
-  depth: s.depth,
-  type: s.type,
-  source: s.source,
-  alpha: s.alpha,
-  beta: s.beta,
-  referenceLine: s.referenceLine,
-  inputDip: s.inputDip,
-  inputDipDirection: s.inputDipDirection,
-  imagePlane:
-    s.source === 'image' && s.dip !== null && s.dipDirection !== null
-      ? { dip: s.dip, dipDirection: s.dipDirection }
-      : null,
-})
 
 /**
  * Recomputes the hole's structures in [from, to) (all of them without a range) and writes the
@@ -72,7 +57,7 @@ export async function recomputeStructures(
     .orderBy(asc(structures.depth), asc(structures.id))
   if (rows.length === 0) return 0
   // Image picks keep the plane computed at import; everything else is recomputed from inputs.
-  const computed = computeStructures(ctx, rows.map(asComputeInput))
+  const computed = computeStructures(ctx, rows.map(storedInputs))
   const payload = rows.map((r, i) => ({
     id: r.id,
     ...computed[i],

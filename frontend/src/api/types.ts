@@ -168,3 +168,154 @@ export interface UserUpdate {
   isAdmin?: boolean
   disabled?: boolean
 }
+
+// ---- Logging: core runs, structures and CSV imports of a hole ----
+
+export type MarkConfidence = 'good' | 'fair' | 'poor' | 'none'
+export type RqdClassName = 'very poor' | 'poor' | 'fair' | 'good' | 'excellent'
+
+/** The project's conventions the entry grid computes with (the API sends them with the project). */
+export type LoggingProject = ProjectWithRole & { betaJumpDeg?: number }
+
+export interface RunMetricsView {
+  tcr: number
+  scr: number
+  rqd: number
+  frequency: number
+  rqdClass: RqdClassName
+  flags: string[]
+}
+
+export interface RunInput {
+  fromDepth: number
+  toDepth: number
+  recovered: number
+  solid: number
+  rqdLength: number
+  fractureCount: number
+  markConfidence: MarkConfidence
+  comment: string
+}
+
+export interface Run extends RunInput {
+  id: Id
+  holeId: Id
+  version: number
+  metrics: RunMetricsView | null
+}
+
+export type RunUpdate = { version: number } & Partial<RunInput>
+
+export type StructureSource = 'core' | 'image' | 'true'
+export type StructureState = 'open' | 'closed' | 'healed'
+export type Confidence = 'high' | 'medium' | 'low'
+
+/** What a logger enters for a structure; condition attributes after ISRM (1978). */
+export interface StructureInput {
+  depth: number
+  type: string
+  source?: 'core' | 'true'
+  alpha?: number
+  beta?: number
+  gamma?: number
+  dip?: number
+  dipDirection?: number
+  referenceLine?: ReferenceLine
+  roughness?: string
+  jrc?: number
+  apertureMm?: number
+  infillType?: string
+  infillThicknessMm?: number
+  persistence?: string
+  wallWeathering?: string
+  state?: StructureState
+  confidence?: Confidence
+  comment?: string
+}
+
+export type StructureUpdate = { version: number } & Partial<StructureInput>
+
+/** A stored structure: inputs, the server's computed orientation and flags, condition. */
+export interface Structure {
+  id: Id
+  holeId: Id
+  depth: number
+  type: string
+  source: StructureSource
+  alpha: number | null
+  beta: number | null
+  gamma: number | null
+  referenceLine: ReferenceLine | null
+  inputDip: number | null
+  inputDipDirection: number | null
+  /** Image picks: the sinusoid as picked (trough azimuth referred to true north when north-referenced). */
+  pickAmplitude: number | null
+  pickDiameter: number | null
+  pickTroughAzimuth: number | null
+  pickReference: string | null
+  pickQuality: string | null
+  dip: number | null
+  dipDirection: number | null
+  poleTrend: number | null
+  polePlunge: number | null
+  holeTrend: number | null
+  holePlunge: number | null
+  east: number | null
+  north: number | null
+  elevation: number | null
+  terzaghiWeight: number | null
+  declinationApplied: number | null
+  surveyRevision: number | null
+  flags: string[]
+  roughness: string | null
+  jrc: number | null
+  apertureMm: number | null
+  infillType: string | null
+  infillThicknessMm: number | null
+  persistence: string | null
+  wallWeathering: string | null
+  state: StructureState | null
+  confidence: Confidence | null
+  comment: string
+  version: number
+  createdBy: Id | null
+  updatedBy: Id | null
+  createdAt: string
+  updatedAt: string
+}
+
+export const csvImportKinds = ['structures', 'runs', 'survey'] as const
+export type CsvImportKind = (typeof csvImportKinds)[number]
+export type ImportStatus = 'previewed' | 'queued' | 'committing' | 'committed' | 'failed'
+
+/** One row of a clean preview; structures carry the orientation computed with the hole's survey. */
+export type ImportSampleRow = Record<string, unknown> & {
+  line: number
+  computed?: { dip: number | null; dipDirection: number | null; flags: string[] }
+}
+
+export interface ImportPreview {
+  importId: string
+  kind: CsvImportKind
+  fileName: string
+  headers: string[]
+  mapping: Record<string, string>
+  options: Record<string, unknown>
+  rowCount: number
+  /** More rows than the server commits within a request: the commit runs as a job. */
+  background: boolean
+  sample: ImportSampleRow[]
+  flagCounts: Record<string, number>
+}
+
+export interface ImportRecord {
+  id: string
+  kind: string
+  status: ImportStatus
+  fileName: string
+  rowCount: number
+  progress: number
+  message: string
+  createdAt: string
+  committedAt: string | null
+}
