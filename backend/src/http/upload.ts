@@ -9,7 +9,7 @@ import { ApiError, badRequest } from './errors'
 export function singleUpload(limitMb: number): RequestHandler {
   const parse = multer({
     storage: multer.memoryStorage(),
-    limits: { fileSize: limitMb * 1024 * 1024, files: 1 },
+    limits: { fileSize: Math.floor(limitMb * 1024 * 1024), files: 1 },
   }).single('file')
   return (req, res, next) => {
     parse(req, res, (err: unknown) => {
