@@ -13,12 +13,14 @@ import {
 } from './csv-rows'
 import { RunImportOptions, runFieldSpecs, runRowSchema } from './kinds/runs'
 import { StructureImportOptions, structureFieldSpecs, structureRowSchema } from './kinds/structures'
+import { PickImportOptions, pickFieldSpecs, pickRowSchema, type PickRow } from './kinds/picks'
 import { SurveyImportOptions, surveyFieldSpecs, surveyRowSchema } from './kinds/survey'
 
-export const csvImportKinds = ['structures', 'runs', 'survey'] as const
+export const csvImportKinds = ['structures', 'runs', 'survey', 'picks'] as const
 export type CsvImportKind = (typeof csvImportKinds)[number]
 
 interface KindRows {
+  picks: PickRow
   structures: StructureInputT
   runs: RunInputT
   survey: StationInputT
@@ -43,6 +45,7 @@ const kinds = {
   },
   runs: { fields: runFieldSpecs, options: RunImportOptions, rowSchema: runRowSchema },
   survey: { fields: surveyFieldSpecs, options: SurveyImportOptions, rowSchema: surveyRowSchema },
+  picks: { fields: pickFieldSpecs, options: PickImportOptions, rowSchema: pickRowSchema },
 } as const
 
 /** Rows that clash with each other: repeated survey depths, overlapping runs. */

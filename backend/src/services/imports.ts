@@ -17,7 +17,9 @@ import { analyseCsv, type Analysis, type CsvImportKind } from '../imports/analys
 import { rowErrorDetails } from '../imports/csv-rows'
 import { copyStructures } from '../imports/copy-structures'
 import { audit } from './audit'
-import { computeStructures } from '../../../orient/index'
+import { computeStructures, storedInputs } from '../../../orient/index'
+import { insertPicks, picksToStructures } from './picks'
+import type { PickImportOptionsT } from '../imports/kinds/picks'
 import { loadComputeContext } from './structure-context'
 import { recomputeStructures } from './structures'
 import { replaceRunsIn } from './runs'
@@ -71,6 +73,25 @@ async function structurePreview(db: Db, project: Project, hole: Hole, a: Analysi
   return { sample, flagCounts }
 }
 
+/** Picks converted like at commit, with their computed planes and flag counts. */
+async function pickPreview(db: Db, project: Project, hole: Hole, a: Analysis<'picks'>) {
+  const ctx = await loadComputeContext(db, project, hole)
+  const rows = picksToStructures(
+    ctx,
+    project,
+    hole,
+    a.rows.map((r) => r.value),
+    a.options as PickImportOptionsT,
+  )
+  const computed = computeStructures(ctx, rows.map(storedInputs))
+  const flagCounts: Record<string, number> = {}
+  for (const c of computed) for (const f of c.flags) flagCounts[f] = (flagCounts[f] ?? 0) + 1
+  const sample = a.rows
+    .slice(0, SAMPLE_ROWS)
+    .map((r, i) => ({ line: r.line, ...r.value, computed: computed[i] }))
+  return { sample, flagCounts }
+}
+
 /**
  * Upload → preview. The file is read and every row checked; any error → 422 listing rows and
  * columns, and nothing is stored. A clean file is kept (original bytes, mapping, options) for
@@ -91,10 +112,12 @@ export async function createImport(
   const preview =
     kind === 'structures'
       ? await structurePreview(db, project, hole, a as Analysis<'structures'>)
-      : {
-          sample: a.rows.slice(0, SAMPLE_ROWS).map((r) => ({ line: r.line, ...r.value })),
-          flagCounts: {},
-        }
+      : kind === 'picks'
+        ? await pickPreview(db, project, hole, a as Analysis<'picks'>)
+        : {
+            sample: a.rows.slice(0, SAMPLE_ROWS).map((r) => ({ line: r.line, ...r.value })),
+            flagCounts: {},
+          }
   const settings: StoredSettings = { mapping: a.mapping, options: a.options }
   const [row] = await db
     .insert(imports)
@@ -235,6 +258,17 @@ export async function commitImport(
       )
       // Beta jumps and run flags depend on neighbours: with earlier structures, recompute the hole.
       if (existing[0].n > 0) await recomputeStructures(tx, project, hole)
+    } else if (a.kind === 'picks') {
+      const ctx = await loadComputeContext(tx, project, hole)
+      const rows = picksToStructures(
+        ctx,
+        project,
+        hole,
+        (a as Analysis<'picks'>).rows.map((r) => r.value),
+        a.options as PickImportOptionsT,
+      )
+      await insertPicks(tx, rows, id, userId)
+      await recomputeStructures(tx, project, hole)
     } else if (a.kind === 'runs') {
       await replaceRunsIn(
         tx,

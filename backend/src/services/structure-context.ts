@@ -3,6 +3,18 @@ import { coreRuns, intervals, surveyStations, type Hole, type Project } from '..
 import type { Executor } from '../db/client'
 import type { ComputeContext } from '../../../orient/index'
 
+/**
+ * Nominal hole diameter (mm) drilled for a wireline core size: NQ ≈ 75.7, HQ ≈ 96, PQ ≈ 122.6
+ * (common practice, from memory); undefined for sizes we do not know.
+ */
+export function holeDiameterMm(coreSize: string): number | undefined {
+  const size = coreSize
+    .trim()
+    .toUpperCase()
+    .replace(/[0-9]+$/, '')
+  return ({ NQ: 75.7, HQ: 96, PQ: 122.6 } as Record<string, number>)[size]
+}
+
 /** What computing a hole's structures needs: project conventions, survey, runs. */
 export async function loadComputeContext(
   db: Executor,
@@ -36,6 +48,7 @@ export async function loadComputeContext(
     referenceLine: project.referenceLine,
     collar: { east: hole.collarEast, north: hole.collarNorth, elevation: hole.collarElevation },
     planned: { trend: hole.plannedAzimuth, plunge: hole.plannedPlunge },
+    holeDiameter: holeDiameterMm(hole.coreSize),
     stations,
     runs,
   }
