@@ -17,7 +17,9 @@ import { replaceWithClusters } from '../services/sets'
 import { hashPassword } from '../auth/passport'
 import { stationRow } from '../services/survey'
 import { declinationFor } from '../services/declination'
-import type { Db, Tx } from './client'
+import type { Db, Executor, Tx } from './client'
+import { demoLasFile, demoPicks } from './demo-logs'
+import { commitLasImport, previewLasImport } from '../services/logs'
 import { DEMO_PASSWORD, demoHoles, demoProject, demoUsers, type DemoHole } from './demo-data'
 import { seedOf, seededRandom } from './random'
 
@@ -65,13 +67,75 @@ export async function seedDemo(db: Db): Promise<void> {
       // Only a hole created now gets its demo survey: an existing hole keeps its own.
       if (inserted.length === 1) await seedSurvey(tx, project, inserted[0], demo)
       await once(tx, `demo:${demo.name}:logging`, () => seedLogging(tx, project, demo))
+      if (demoLogHoles.includes(demo.name)) {
+        await once(tx, `demo:${demo.name}:picks`, () => seedPicks(tx, project, demo))
+      }
       await once(tx, `demo:${demo.name}:intervals`, () => seedIntervals(tx, project, demo))
     }
+  })
+  for (const name of demoLogHoles) await once(db, `demo:${name}:las`, () => seedLas(db, name))
+}
+
+/** Holes of the demo that were also logged with a televiewer and geophysical tools. */
+const demoLogHoles = ['GSQ-BH02', 'GSQ-BH05']
+
+async function demoHoleRow(tx: Executor, name: string) {
+  const [row] = await tx
+    .select({ hole: holes, project: projects })
+    .from(holes)
+    .innerJoin(projects, eq(projects.id, holes.projectId))
+    .where(and(eq(projects.code, demoProject.code), eq(holes.name, name)))
+  if (!row) return undefined
+  const stations = await tx
+    .select()
+    .from(surveyStations)
+    .where(eq(surveyStations.holeId, row.hole.id))
+    .orderBy(asc(surveyStations.depth))
+  return { ...row, stations }
+}
+
+/** Image picks seen again from the hole's own oriented core structures, recomputed like any pick. */
+async function seedPicks(tx: Tx, project: typeof projects.$inferSelect, demo: DemoHole) {
+  const found = await demoHoleRow(tx, demo.name)
+  if (!found || found.stations.length === 0) return
+  const { structures: core } = demoLogging(demo.name, found.hole.finalDepth, found.stations)
+  const picks = demoPicks(demo.name, core)
+  for (let i = 0; i < picks.length; i += 500) {
+    await tx.insert(structures).values(
+      picks.slice(i, i + 500).map((p) => ({
+        holeId: found.hole.id,
+        depth: p.depth,
+        type: p.type,
+        source: 'image' as const,
+        pickAmplitude: p.amplitude,
+        pickDiameter: p.diameter,
+        pickTroughAzimuth: p.troughAzimuth,
+        pickReference: 'highside',
+        pickAzimuthReference: 'highside',
+        pickQuality: p.quality,
+      })),
+    )
+  }
+  await recomputeStructures(tx, project, found.hole)
+}
+
+/** A LAS file through the same reader and commit as an upload, kept as the import's original. */
+async function seedLas(db: Db, name: string) {
+  const found = await demoHoleRow(db, name)
+  if (!found || found.stations.length === 0) return
+  const [admin] = await db.select().from(users).where(eq(users.email, demoUsers[0].email))
+  const text = demoLasFile(name, found.hole.finalDepth, found.stations)
+  const preview = await previewLasImport(db, admin.id, found.project, found.hole, {
+    fileName: `${name.toLowerCase()}-logs.las`,
+    bytes: Buffer.from(text),
+  })
+  await commitLasImport(db, admin.id, found.project, found.hole, preview.importId, {
+    depthShift: 0,
   })
 }
 
 /** Runs `step` unless a seed step of that name was applied before (even if its rows were edited since). */
-async function once(tx: Tx, name: string, step: () => Promise<void>) {
+async function once(tx: Executor, name: string, step: () => Promise<void>) {
   const [done] = await tx.select().from(seedSteps).where(eq(seedSteps.name, name))
   if (done) return
   await step()

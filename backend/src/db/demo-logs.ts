@@ -1,0 +1,92 @@
+import { holeAt } from '../../../orient/index'
+import type { StructureInputT } from '../../../schema/index'
+import { seededRandom, seedOf } from './random'
+
+interface Station {
+  depth: number
+  azimuth: number
+  plunge: number
+}
+
+/**
+ * A LAS 2.0 file for a demo hole: gamma ray, bulk density and caliper that follow the demo's
+ * domains (the mudstone band reads hot and light), and the hole's deviation channels. Invented.
+ */
+export function demoLasFile(
+  holeName: string,
+  finalDepth: number,
+  stations: readonly Station[],
+): string {
+  const random = seededRandom(seedOf(`${holeName}:las`))
+  const step = 0.1
+  const start = 1.0
+  const lines: string[] = []
+  for (let d = start; d <= finalDepth - 0.5 + 1e-9; d += step) {
+    const mud = d >= 70 && d < 130
+    const gr = (mud ? 85 : 22) + (random() - 0.5) * (mud ? 20 : 10)
+    const rhob = (mud ? 2.46 : 2.66) + (random() - 0.5) * 0.04
+    const cali = 96 + (random() < 0.02 ? 8 + random() * 10 : random() * 1.5)
+    const axis = holeAt(stations, d)!
+    const nulls = d < 3
+    const row = [
+      d,
+      nulls ? -999.25 : gr,
+      nulls ? -999.25 : rhob,
+      cali,
+      90 - axis.plunge,
+      axis.trend,
+    ]
+    lines.push(row.map((v, i) => (i === 0 ? v.toFixed(2) : v.toFixed(3))).join('  '))
+  }
+  const stop = start + (lines.length - 1) * step
+  return [
+    '~VERSION INFORMATION',
+    ' VERS.                 2.0 : CWLS LOG ASCII STANDARD - VERSION 2.0',
+    ' WRAP.                  NO : ONE LINE PER DEPTH STEP',
+    '~WELL INFORMATION',
+    ` STRT.M             ${start.toFixed(2)} : START DEPTH`,
+    ` STOP.M             ${stop.toFixed(2)} : STOP DEPTH`,
+    ` STEP.M             ${step.toFixed(2)} : STEP`,
+    ' NULL.            -999.25 : NULL VALUE',
+    ' COMP.   Greyscar Quarry Ltd (demo) : COMPANY',
+    ` WELL.   ${holeName} : WELL`,
+    ' FLD .   Greyscar Quarry north wall : FIELD',
+    ' SRVC.   Downdip demo logging : SERVICE COMPANY',
+    ' DATE.   2026-06-10 : LOG DATE',
+    '~CURVE INFORMATION',
+    ' DEPT.M                    : MEASURED DEPTH',
+    ' GR  .GAPI                 : GAMMA RAY',
+    ' RHOB.G/C3                 : BULK DENSITY',
+    ' CALI.MM                   : CALIPER',
+    ' DEVI.DEG                  : HOLE INCLINATION FROM VERTICAL',
+    ' AZI .DEG                  : HOLE AZIMUTH (TRUE)',
+    '~PARAMETER INFORMATION',
+    ' BS  .MM             96.0 : BIT SIZE',
+    '~A  DEPT  GR  RHOB  CALI  DEVI  AZI',
+    ...lines,
+    '',
+  ].join('\n')
+}
+
+/**
+ * Televiewer picks for a demo hole: the oriented core structures seen again on the image log, a few
+ * centimetres deeper (log depth vs driller's depth), as high-side sinusoids on a 96 mm hole:
+ * H = D·tan(90° − alpha) and trough = beta + 180 (beta from the bottom of hole).
+ */
+export function demoPicks(holeName: string, structures: readonly StructureInputT[]) {
+  const random = seededRandom(seedOf(`${holeName}:picks`))
+  const diameter = 96
+  return structures
+    .filter((s) => s.alpha !== undefined && s.beta !== undefined && s.alpha > 3 && random() < 0.8)
+    .map((s) => ({
+      depth: Math.round((s.depth + 0.04 + (random() - 0.5) * 0.02) * 1000) / 1000,
+      type: s.type,
+      amplitude:
+        Math.round(
+          diameter * Math.tan(((90 - s.alpha! + (random() - 0.5) * 3) * Math.PI) / 180) * 10,
+        ) / 10,
+      diameter,
+      troughAzimuth: Math.round((s.beta! + 180 + (random() - 0.5) * 6 + 360) % 360),
+      quality: random() < 0.15 ? 'poor' : 'good',
+    }))
+}
