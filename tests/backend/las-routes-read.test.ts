@@ -149,9 +149,7 @@ describe('POST /api/projects/:projectId/holes/:holeId/logs (edge cases)', () => 
   it('POST logs without a file, or an empty one → 400 naming the field', async () => {
     const res = await logger.post(logs(), { note: 'no file' })
     expect(res.status).toBe(400)
-    expect(res.body.error.details).toEqual([
-      { path: 'file', message: 'Attach a LAS file in the multipart field "file".' },
-    ])
+    expect(res.body.error.details).toEqual([{ path: 'file', message: 'required' }])
     const empty = await logger.upload(logs(), Buffer.alloc(0), 'empty.las')
     expect(empty.status).toBe(400)
     expect(empty.body.error.details).toEqual([{ path: 'file', message: 'The file is empty.' }])
@@ -173,8 +171,8 @@ describe('POST /api/projects/:projectId/holes/:holeId/logs (edge cases)', () => 
       expect(res.status).toBe(413)
       expect(res.body.error).toEqual({
         code: 'too_large',
-        message: 'The file is larger than the 0.5 MB limit.',
-        details: [],
+        message: 'The file is larger than 0.5 MB.',
+        details: [{ path: 'file', message: 'over 0.5 MB' }],
       })
       expect(await countRows(fx.db, 'imports')).toBe(before)
       const anonymous = request.agent(small)

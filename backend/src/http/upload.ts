@@ -9,7 +9,8 @@ import { ApiError, badRequest } from './errors'
 export function singleUpload(limitMb: number): RequestHandler {
   const parse = multer({
     storage: multer.memoryStorage(),
-    limits: { fileSize: Math.floor(limitMb * 1024 * 1024), files: 1 },
+    limits: { fileSize: Math.floor(limitMb * 1024 * 1024), files: 1, fields: 10 },
+    defParamCharset: 'utf8',
   }).single('file')
   return (req, res, next) => {
     parse(req, res, (err: unknown) => {
@@ -36,4 +37,16 @@ export function singleUpload(limitMb: number): RequestHandler {
       next()
     })
   }
+}
+
+/** Keeps the last path part and drops control characters: the name is shown and sent back. */
+export function cleanFileName(name: string, fallback = 'upload'): string {
+  const base = name.slice(Math.max(name.lastIndexOf('/'), name.lastIndexOf('\\')) + 1)
+  let clean = ''
+  for (const ch of base) {
+    const code = ch.codePointAt(0) ?? 0
+    clean += code < 0x20 || code === 0x7f || ch === '"' ? '_' : ch
+  }
+  clean = clean.trim().slice(0, 200)
+  return clean === '' ? fallback : clean
 }

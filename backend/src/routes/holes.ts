@@ -39,7 +39,7 @@ export async function holeOf(db: Db, req: Request, res: Response) {
 export function holesRouter(deps: ImportDeps): Router {
   const { db } = deps
   const router = Router({ mergeParams: true })
-  router.use('/:holeId/logs', logsRouter(db))
+  router.use('/:holeId/logs', logsRouter(db, deps.uploadLimitMb))
   router.use('/:holeId/runs', runsRouter(db))
   router.use('/:holeId/structures', structuresRouter(db))
   router.use('/:holeId/imports', importsRouter(deps))

@@ -7,7 +7,7 @@ import type { Db } from '../db/client'
 import type { JobQueue } from '../jobs/queue'
 import { projectLocals, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
-import { singleUpload } from '../http/upload'
+import { cleanFileName, singleUpload } from '../http/upload'
 import { csvImportKinds } from '../imports/analyse'
 import { holeOf } from './holes'
 import {
@@ -72,7 +72,10 @@ export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Ro
     async (req, res) => {
       const hole = await holeOf(db, req, res)
       const { body } = inputOf(res, { body: UploadBody })
-      const file = { name: req.file!.originalname, buffer: req.file!.buffer }
+      const file = {
+        name: cleanFileName(req.file!.originalname, 'upload.csv'),
+        buffer: req.file!.buffer,
+      }
       const preview = await createImport(
         db,
         req.user!.id,

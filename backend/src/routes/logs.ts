@@ -1,10 +1,10 @@
 import { Router, type RequestHandler } from 'express'
-import multer from 'multer'
 import { z } from 'zod'
 import type { Db } from '../db/client'
 import { projectLocals, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
-import { ApiError, badRequest, notFound } from '../http/errors'
+import { badRequest, notFound } from '../http/errors'
+import { cleanFileName, singleUpload } from '../http/upload'
 import { holeOf } from './holes'
 import {
   commitLasImport,
@@ -39,52 +39,8 @@ const UploadedFile = z.object({
   buffer: z.instanceof(Buffer),
 })
 
-/** UPLOAD_LIMIT_MB as env.ts reads it (default 50); the router is not handed the parsed env. */
-export const uploadLimitMb = (source: NodeJS.ProcessEnv = process.env) =>
-  z.coerce
-    .number()
-    .positive()
-    .default(50)
-    .parse(source.UPLOAD_LIMIT_MB || undefined)
-
-/** Keeps the last path part and drops control characters: the name is shown and sent back. */
-export function cleanFileName(name: string): string {
-  const base = name.slice(Math.max(name.lastIndexOf('/'), name.lastIndexOf('\\')) + 1)
-  let clean = ''
-  for (const ch of base) {
-    const code = ch.codePointAt(0) ?? 0
-    clean += code < 0x20 || code === 0x7f || ch === '"' ? '_' : ch
-  }
-  clean = clean.trim().slice(0, 200)
-  return clean === '' ? 'upload.las' : clean
-}
-
-/** One `file` field in memory; multer's own errors become our error shape (413 when too large). */
-function uploadOne(limitMb: number): RequestHandler {
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    limits: { fileSize: Math.floor(limitMb * 1024 * 1024), files: 1, fields: 10 },
-    defParamCharset: 'utf8',
-  }).single('file')
-  return (req, res, next) =>
-    upload(req, res, (err: unknown) => {
-      if (!err) return next()
-      if (err instanceof multer.MulterError) {
-        if (err.code === 'LIMIT_FILE_SIZE') {
-          return next(
-            new ApiError(413, 'too_large', `The file is larger than the ${limitMb} MB limit.`),
-          )
-        }
-        return next(
-          badRequest(`Upload refused: ${err.message}.`, [{ path: 'file', message: err.code }]),
-        )
-      }
-      next(err)
-    })
-}
-
 /** /api/projects/:projectId/holes/:holeId/logs: LAS upload → preview → commit, and the curves. */
-export function logsRouter(db: Db): Router {
+export function logsRouter(db: Db, uploadLimitMb: number): Router {
   const router = Router({ mergeParams: true })
   const importOf = (params: unknown) => {
     const parsed = ImportParams.safeParse(params)
@@ -108,7 +64,7 @@ export function logsRouter(db: Db): Router {
     '/',
     requireRole('logger'),
     loadHole,
-    uploadOne(uploadLimitMb()),
+    singleUpload(uploadLimitMb),
     async (req, res) => {
       const file = UploadedFile.safeParse(req.file)
       if (!file.success) {
@@ -117,7 +73,10 @@ export function logsRouter(db: Db): Router {
           : 'Attach a LAS file in the multipart field "file".'
         throw badRequest(message, [{ path: 'file', message }])
       }
-      const upload = { fileName: cleanFileName(file.data.originalname), bytes: file.data.buffer }
+      const upload = {
+        fileName: cleanFileName(file.data.originalname, 'upload.las'),
+        bytes: file.data.buffer,
+      }
       const { project } = projectLocals(res)
       res
         .status(201)
