@@ -1,7 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { eq } from 'drizzle-orm'
+import { readFileSync } from 'node:fs'
 import {
   coreRuns,
+  logCurves,
   domains,
   holes,
   imports,
@@ -138,6 +140,37 @@ const freshSet = async (fx: Fixture) => {
     .values({ intervalId: i.id, name: 'S', centreTrend: 10, centrePlunge: 40, coneAngle: 20 })
     .returning()
   return { interval: i, set }
+}
+const lasFile = (name: string) =>
+  readFileSync(new URL(`../../testdata/las/${name}`, import.meta.url))
+const freshLas = async (fx: Fixture, name = 'gsq-bh02-plain.las') => {
+  const [i] = await fx.db
+    .insert(imports)
+    .values({
+      projectId: fx.projectId,
+      holeId: fx.holeId,
+      kind: 'las',
+      fileName: name,
+      file: lasFile(name),
+      options: {},
+    })
+    .returning()
+  return i
+}
+const freshCurve = async (fx: Fixture) => {
+  const [c] = await fx.db
+    .insert(logCurves)
+    .values({
+      holeId: fx.holeId,
+      mnemonic: 'GR',
+      sourceFile: 'x.las',
+      depths: [1, 2],
+      values: [10, 20],
+      minDepth: 1,
+      maxDepth: 2,
+    })
+    .returning()
+  return c
 }
 const I = (fx: Fixture, id: number) => `${H(fx)}/intervals/${id}`
 const station = () => ({ depth: 500 + unique(), azimuth: 12, plunge: 58, azimuthReference: 'true' })
@@ -574,6 +607,62 @@ const cases: RouteCase[] = [
       const { interval, set } = await freshSet(fx)
       return { path: `${I(fx, interval.id)}/sets/${set.id}/members`, body: { structureIds: [] } }
     },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/logs',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/logs` }),
+  },
+  // multipart routes: past the role check, a request without a file is refused as 400
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/logs',
+    need: 'logger',
+    ok: 400,
+    prepare: async (fx) => ({ path: `${H(fx)}/logs` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/imports',
+    need: 'logger',
+    ok: 400,
+    prepare: async (fx) => ({ path: `${H(fx)}/imports` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/logs/:curveId',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/logs/${(await freshCurve(fx)).id}` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/logs/imports/:importId/commit',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => ({
+      path: `${H(fx)}/logs/imports/${(await freshLas(fx)).id}/commit`,
+      body: {},
+    }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/logs/imports/:importId/file',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/logs/imports/${(await freshLas(fx)).id}/file` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/logs/imports/:importId/survey-from-deviation',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => ({
+      path: `${H(fx)}/logs/imports/${(await freshLas(fx, 'gsq-bh03-feet-deviation.las')).id}/survey-from-deviation`,
+      body: {},
+    }),
   },
   {
     method: 'get',
