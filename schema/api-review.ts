@@ -42,7 +42,12 @@ export const IntervalUpdateBody = z
 const list = <T extends readonly [string, ...string[]]>(values: T) =>
   z
     .string()
-    .transform((s) => s.split(',').map((x) => x.trim()).filter(Boolean))
+    .transform((s) =>
+      s
+        .split(',')
+        .map((x) => x.trim())
+        .filter(Boolean),
+    )
     .pipe(z.array(z.enum(values)))
     .optional()
 
@@ -66,8 +71,12 @@ export const SetCreateBody = z
   .strict()
 export const SetUpdateBody = SetCreateBody.partial().extend({ version }).strict()
 export const ClusterBody = z.object({ k: z.number().int().min(1).max(12) }).strict()
-export const SuggestQuery = z.object({ maxK: z.coerce.number().int().min(2).max(12).default(6) }).strict()
-export const MembersBody = z.object({ structureIds: z.array(z.number().int().positive()).max(100000) }).strict()
+export const SuggestQuery = z
+  .object({ maxK: z.coerce.number().int().min(2).max(12).default(6) })
+  .strict()
+export const MembersBody = z
+  .object({ structureIds: z.array(z.number().int().positive()).max(100000) })
+  .strict()
 
 export type IntervalCreate = z.infer<typeof IntervalCreateBody>
 export type IntervalUpdate = z.infer<typeof IntervalUpdateBody>
