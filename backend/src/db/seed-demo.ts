@@ -217,8 +217,9 @@ async function seedIntervals(tx: Tx, project: typeof projects.$inferSelect, demo
     .where(and(eq(holes.projectId, project.id), eq(holes.name, demo.name)))
   if (!hole) return
   for (const domain of demoDomains) {
-    const from = domain.from
-    const to = Math.min(domain.to, hole.finalDepth)
+    // Transition zones 5 m either side of each domain boundary stay unassigned (left for review).
+    const from = domain.from + 5
+    const to = Math.min(domain.to, hole.finalDepth) - 5
     if (to - from < 10) continue
     await tx
       .insert(domains)
