@@ -26,7 +26,14 @@ export interface Fixture {
 /** The app against the test database, wiped and filled with one project and a user per role. */
 export async function createFixture(envOverrides: Record<string, string> = {}): Promise<Fixture> {
   const { db, pool } = createDb(inject('databaseUrl'), 4)
-  const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent', ...envOverrides })
+  // Mail goes nowhere unless a test starts its own fake SMTP server and says where it listens.
+  const env = loadEnv({
+    ...process.env,
+    NODE_ENV: 'test',
+    LOG_LEVEL: 'silent',
+    SMTP_URL: 'smtp://127.0.0.1:9',
+    ...envOverrides,
+  })
   const app = createApp({ db, pool, env, logger: createLogger('silent') })
   await wipe(db)
   const passwordHash = await hashPassword(PASSWORD)

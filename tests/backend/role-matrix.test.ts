@@ -666,6 +666,74 @@ const cases: RouteCase[] = [
   },
   {
     method: 'get',
+    route: '/api/projects/:projectId/comments',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({
+      path: `${P(fx)}/comments?entity=interval&entityId=${(await freshInterval(fx)).id}`,
+    }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/comments',
+    need: 'logger',
+    ok: 201,
+    prepare: async (fx) => ({
+      path: `${P(fx)}/comments`,
+      body: { entity: 'interval', entityId: (await freshInterval(fx)).id, body: 'looks fine' },
+    }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/audit',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${P(fx)}/audit` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/submit',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${I(fx, (await freshInterval(fx)).id)}/submit` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/check',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => {
+      const i = await freshInterval(fx)
+      return { path: `${I(fx, i.id)}/check`, body: { version: i.version } }
+    },
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/approve',
+    need: 'lead',
+    ok: 200,
+    prepare: async (fx) => {
+      const i = await freshInterval(fx)
+      await fx.db.update(intervals).set({ status: 'checked' }).where(eq(intervals.id, i.id))
+      return { path: `${I(fx, i.id)}/approve`, body: { version: i.version } }
+    },
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/intervals/:intervalId/reopen',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => {
+      const i = await freshInterval(fx)
+      await fx.db.update(intervals).set({ status: 'checked' }).where(eq(intervals.id, i.id))
+      return {
+        path: `${I(fx, i.id)}/reopen`,
+        body: { version: i.version, reason: 'recheck the set table' },
+      }
+    },
+  },
+  {
+    method: 'get',
     route: '/api/users',
     need: 'admin',
     ok: 200,
