@@ -98,7 +98,9 @@ export function analyseCsv<K extends CsvImportKind>(
   const table = readCsvTable(file)
   const mapping = mappingIn ?? suggestMapping(table.headers, spec.fields)
   const index = resolveMapping(table.headers, spec.fields, mapping)
-  const schema = (spec.rowSchema as (o: unknown) => z.ZodType<KindRows[K]>)(opts.data)
+  const schema = (
+    spec.rowSchema as unknown as (o: unknown, m: Set<string>) => z.ZodType<KindRows[K]>
+  )(opts.data, new Set(index.keys()))
   const { rows, errors } = readRows(table, spec.fields, index, schema)
   const cross = crossRowErrors(kind, { rows, mapping })
   const all = [...errors, ...cross].sort((x, y) => x.line - y.line)

@@ -80,37 +80,45 @@ const lower = <T extends readonly string[]>(values: T) =>
  * zod pass per row: the numeric rules are the API's own (`structureFields`), the enums accept any
  * case, and the same completeness rule (`inputsComplete`) runs on the converted row.
  */
-export function structureRowSchema(options: StructureImportOptionsT): z.ZodType<StructureInputT> {
+export function structureRowSchema(
+  options: StructureImportOptionsT,
+  mapped?: ReadonlySet<string>,
+): z.ZodType<StructureInputT> {
   const f = structureFields
-  return z
-    .object({
-      depth: f.depth,
-      type: z.string().transform((t, ctx) => {
-        const type = parseStructureType(t)
-        if (!type) ctx.addIssue({ code: 'custom', message: `"${t}" is not a structure type` })
-        return type ?? 'joint'
-      }),
-      alpha: f.alpha,
-      beta: f.beta,
-      gamma: f.gamma,
-      dip: f.dip,
-      dipDirection: f.dipDirection,
-      roughness: z
-        .preprocess(
-          (v) => (typeof v === 'string' ? v.trim().toUpperCase() : v),
-          z.enum(roughnessClasses),
-        )
-        .optional(),
-      jrc: f.jrc,
-      apertureMm: f.apertureMm,
-      infillType: f.infillType,
-      infillThicknessMm: f.infillThicknessMm,
-      persistence: lower(persistenceClasses).optional(),
-      wallWeathering: lower(weatheringGrades).optional(),
-      state: lower(structureStates).optional(),
-      confidence: lower(confidences).optional(),
-      comment: f.comment,
-    })
+  const shape = {
+    depth: f.depth,
+    type: z.string().transform((t, ctx) => {
+      const type = parseStructureType(t)
+      if (!type) ctx.addIssue({ code: 'custom', message: `"${t}" is not a structure type` })
+      return type ?? 'joint'
+    }),
+    alpha: f.alpha,
+    beta: f.beta,
+    gamma: f.gamma,
+    dip: f.dip,
+    dipDirection: f.dipDirection,
+    roughness: z
+      .preprocess(
+        (v) => (typeof v === 'string' ? v.trim().toUpperCase() : v),
+        z.enum(roughnessClasses),
+      )
+      .optional(),
+    jrc: f.jrc,
+    apertureMm: f.apertureMm,
+    infillType: f.infillType,
+    infillThicknessMm: f.infillThicknessMm,
+    persistence: lower(persistenceClasses).optional(),
+    wallWeathering: lower(weatheringGrades).optional(),
+    state: lower(structureStates).optional(),
+    confidence: lower(confidences).optional(),
+    comment: f.comment,
+  }
+  // Only the columns the file maps are checked: unmapped fields are absent on every row anyway,
+  // and a narrower object keeps a 100,000-row file quick.
+  const used = mapped
+    ? Object.fromEntries(Object.entries(shape).filter(([k]) => mapped.has(k)))
+    : shape
+  return (z.object(used) as unknown as z.ZodObject<typeof shape>)
     .transform(({ dip, dipDirection, alpha, beta, depth, ...r }): StructureInputT => {
       const angles =
         options.mode === 'true'
