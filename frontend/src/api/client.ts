@@ -8,13 +8,22 @@ export class ApiError extends Error {
   readonly status: number
   readonly code: string
   readonly details: ErrorDetail[]
+  /** Context the server adds to act on the error (e.g. an import's columns and mapping). */
+  readonly meta: Record<string, unknown> | undefined
 
-  constructor(status: number, code: string, message: string, details: ErrorDetail[] = []) {
+  constructor(
+    status: number,
+    code: string,
+    message: string,
+    details: ErrorDetail[] = [],
+    meta?: Record<string, unknown>,
+  ) {
     super(message)
     this.name = 'ApiError'
     this.status = status
     this.code = code
     this.details = details
+    this.meta = meta
   }
 }
 
@@ -71,9 +80,11 @@ async function readJson(response: Response): Promise<unknown> {
 }
 
 function toApiError(status: number, payload: unknown): ApiError {
-  const error = (payload as Partial<ErrorBody> | undefined)?.error
+  const error = (payload as Partial<ErrorBody> | undefined)?.error as
+    (ErrorBody['error'] & { meta?: Record<string, unknown> }) | undefined
   if (error && typeof error.code === 'string') {
-    return new ApiError(status, error.code, error.message ?? error.code, error.details ?? [])
+    const { code, message, details, meta } = error
+    return new ApiError(status, code, message ?? code, details ?? [], meta)
   }
   return new ApiError(status, `http_${status}`, `The server answered ${status}.`)
 }
@@ -86,7 +97,9 @@ async function send<T>(
   retried = false,
 ): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json' }
-  if (body !== undefined) headers['Content-Type'] = 'application/json'
+  // Multipart bodies set their own Content-Type with the boundary.
+  const multipart = body instanceof FormData
+  if (body !== undefined && !multipart) headers['Content-Type'] = 'application/json'
   if (method !== 'GET') headers['X-CSRF-Token'] = csrfToken ?? (await fetchCsrfToken())
 
   let response: Response
@@ -94,7 +107,7 @@ async function send<T>(
     response = await fetch(API_BASE + path, {
       method,
       headers,
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : multipart ? body : JSON.stringify(body),
       credentials: 'same-origin',
       signal: options.signal,
     })
@@ -132,6 +145,9 @@ export const api = {
     send<T>('PATCH', path, body, options),
   delete: <T>(path: string, options?: RequestOptions) =>
     send<T>('DELETE', path, undefined, options),
+  /** POST as multipart/form-data (file uploads), with the same CSRF and 401 handling. */
+  upload: <T>(path: string, form: FormData, options?: RequestOptions) =>
+    send<T>('POST', path, form, options),
 }
 
 /** Encodes one path segment (ids, codes). */

@@ -2,7 +2,7 @@ import { computed, ref } from 'vue'
 import { getHole, getSurvey, replaceSurvey } from '../api/holes'
 import { getProject } from '../api/projects'
 import { isApiError } from '../api/client'
-import type { Hole, ProjectWithRole, Station } from '../api/types'
+import type { Hole, LoggingProject, Station } from '../api/types'
 import { useAuthStore } from '../stores/auth'
 import { describeError } from '../components/format'
 import {
@@ -21,7 +21,7 @@ import { useNotFound } from './use-not-found'
 export function useHoleSurvey(projectId: () => string, holeId: () => string) {
   const auth = useAuthStore()
   const handleMissing = useNotFound()
-  const project = ref<ProjectWithRole | null>(null)
+  const project = ref<LoggingProject | null>(null)
   const hole = ref<Hole | null>(null)
   const stations = ref<Station[]>([])
   const rows = ref<SurveyRow[]>([])
@@ -127,6 +127,7 @@ export function useHoleSurvey(projectId: () => string, holeId: () => string) {
   return {
     project,
     hole,
+    stations,
     rows,
     dirty,
     loading,
@@ -154,3 +155,5 @@ function mapDetails(details: { path: string; message: string }[], sent: SurveyRo
   }
   return mapped
 }
+
+export type HoleSurvey = ReturnType<typeof useHoleSurvey>

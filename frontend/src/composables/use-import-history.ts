@@ -1,0 +1,59 @@
+import { computed, onBeforeUnmount, ref } from 'vue'
+import { getImport, listImports } from '../api/imports'
+import type { ImportRecord } from '../api/types'
+import { describeError } from '../components/format'
+import { isRunning } from './use-import-progress'
+
+const POLL_MS = 1000
+
+/**
+ * The hole's recent imports. Any still queued or committing (a background commit started before a
+ * page reload, or by a colleague) is polled every second until it ends.
+ */
+export function useImportHistory(projectId: () => string, holeId: () => string) {
+  const records = ref<ImportRecord[]>([])
+  const loading = ref(false)
+  const error = ref<string | null>(null)
+  const running = computed(() => records.value.filter(isRunning))
+  let timer: ReturnType<typeof setTimeout> | undefined
+  let finished: ((r: ImportRecord) => void) | undefined
+
+  function schedule() {
+    clearTimeout(timer)
+    timer = running.value.length ? setTimeout(() => void poll(), POLL_MS) : undefined
+  }
+
+  async function poll() {
+    const updates = await Promise.allSettled(
+      running.value.map((r) => getImport(projectId(), holeId(), r.id)),
+    )
+    for (const u of updates) {
+      if (u.status !== 'fulfilled') continue
+      const next = u.value
+      records.value = records.value.map((r) => (r.id === next.id ? next : r))
+      if (!isRunning(next)) finished?.(next)
+    }
+    schedule()
+  }
+
+  async function load() {
+    loading.value = true
+    try {
+      records.value = await listImports(projectId(), holeId())
+      error.value = null
+    } catch (err: unknown) {
+      error.value = describeError(err, 'The imports could not be listed.')
+    } finally {
+      loading.value = false
+    }
+    schedule()
+  }
+
+  /** Called when a followed import ends (to reload what it changed). */
+  function onFinished(handler: (r: ImportRecord) => void) {
+    finished = handler
+  }
+
+  onBeforeUnmount(() => clearTimeout(timer))
+  return { records, loading, error, running, load, onFinished }
+}
