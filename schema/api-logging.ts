@@ -113,7 +113,32 @@ export const StructureInput = z
   .object({ ...structureFields, source: structureFields.source.default('core') })
   .strict()
   .superRefine(inputsComplete)
-export const StructureUpdateBody = z.object(structureFields).partial().extend({ version }).strict()
+/** Fields a logger may clear on an edit (null); depth, type and source are always present. */
+const clearable = [
+  'alpha',
+  'beta',
+  'gamma',
+  'dip',
+  'dipDirection',
+  'referenceLine',
+  'roughness',
+  'jrc',
+  'apertureMm',
+  'infillType',
+  'infillThicknessMm',
+  'persistence',
+  'wallWeathering',
+  'state',
+  'confidence',
+] as const
+export const StructureUpdateBody = z
+  .object({
+    ...structureFields,
+    ...Object.fromEntries(clearable.map((k) => [k, structureFields[k].unwrap().nullable().optional()])),
+  } as typeof structureFields)
+  .partial()
+  .extend({ version })
+  .strict()
 
 export type RunInputT = z.infer<typeof RunInput>
 export type StructureInputT = z.infer<typeof StructureInput>

@@ -245,6 +245,13 @@ describe('PATCH / DELETE structures', () => {
     expect((await logger.get(`${base()}/structures/${a.id}`)).body.data.comment).toBe('first')
   })
 
+  it('PATCH structures/:structureId with null clears an attribute', async () => {
+    const s = (await logger.post(`${base()}/structures`, { depth: 13, type: 'joint', alpha: 60, beta: 5, jrc: 8 })).body.data
+    const res = await logger.patch(`${base()}/structures/${s.id}`, { version: s.version, jrc: null })
+    expect(res.status).toBe(200)
+    expect(res.body.data.jrc).toBeNull()
+  })
+
   it('DELETE structures/:structureId?version= → 409 stale, 204 current', async () => {
     const created = (
       await logger.post(`${base()}/structures`, { depth: 12, type: 'vein', alpha: 70, beta: 30 })
