@@ -113,13 +113,13 @@ export const StructureInput = z
   .object({ ...structureFields, source: structureFields.source.default('core') })
   .strict()
   .superRefine(inputsComplete)
-/** Fields a logger may clear on an edit (null); depth, type and source are always present. */
+/**
+ * Fields a logger may clear on an edit (null): beta (unoriented core), gamma and the attributes;
+ * depth, type, source, alpha and a true orientation cannot be blanked.
+ */
 const clearable = [
-  'alpha',
   'beta',
   'gamma',
-  'dip',
-  'dipDirection',
   'referenceLine',
   'roughness',
   'jrc',

@@ -81,3 +81,32 @@ export const MembersBody = z
 export type IntervalCreate = z.infer<typeof IntervalCreateBody>
 export type IntervalUpdate = z.infer<typeof IntervalUpdateBody>
 export type AnalysisOptions = z.infer<typeof AnalysisQuery>
+
+export const ReviewBody = z.object({ version }).strict()
+export const ReopenBody = z.object({ version, reason: z.string().trim().min(3).max(1000) }).strict()
+
+export const commentEntities = ['structure', 'interval'] as const
+export const CommentQuery = z
+  .object({ entity: z.enum(commentEntities), entityId: z.coerce.number().int().positive() })
+  .strict()
+export const CommentBody = z
+  .object({
+    entity: z.enum(commentEntities),
+    entityId: z.number().int().positive(),
+    body: z.string().trim().min(1).max(4000),
+    /** Members named explicitly; "@email" in the text also mentions a member. */
+    mentions: z.array(z.number().int().positive()).max(50).optional(),
+  })
+  .strict()
+
+export const AuditQuery = z
+  .object({
+    entity: z.string().max(40).optional(),
+    action: z.string().max(40).optional(),
+    userId: z.coerce.number().int().positive().optional(),
+    from: z.iso.datetime({ offset: true }).optional(),
+    to: z.iso.datetime({ offset: true }).optional(),
+    before: z.coerce.number().int().positive().optional(),
+    limit: z.coerce.number().int().min(1).max(200).default(50),
+  })
+  .strict()

@@ -19,13 +19,21 @@ if [ ! -f frontend/dist/index.html ] || [ -n "$(find frontend orient schema -new
 fi
 
 server_pid=""
+smtp_pid=""
 stop_all() {
   trap - INT TERM EXIT
   if [ -n "$server_pid" ]; then kill -TERM "$server_pid" 2>/dev/null || true; wait "$server_pid" 2>/dev/null || true; fi
+  if [ -n "$smtp_pid" ]; then kill -TERM "$smtp_pid" 2>/dev/null || true; wait "$smtp_pid" 2>/dev/null || true; fi
   log "stopping PostgreSQL"
   pg_cluster_down "$PG_DATA"
 }
 trap stop_all INT TERM EXIT
+# The local fake SMTP server (its mail shows in the dev mailbox); FAKE_SMTP=0 with a real SMTP_URL skips it.
+if [ "${FAKE_SMTP:-1}" != 0 ]; then
+  # tsx itself, not npx: npx does not pass the TERM from stop_all on to its child.
+  node_modules/.bin/tsx backend/src/mail/fake-smtp-cli.ts &
+  smtp_pid=$!
+fi
 npx tsx backend/src/server.ts &
 server_pid=$!
 wait "$server_pid" || true

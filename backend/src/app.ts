@@ -14,8 +14,10 @@ import { createPassport } from './auth/passport'
 import { requireCsrfToken } from './auth/csrf'
 import { loadProject, requireSignedIn } from './auth/guards'
 import { errorHandler, notFoundHandler } from './http/error-handler'
-import { authRouter } from './routes/auth'
+import { authRouter, passwordResetRouter } from './routes/auth'
 import { healthRouter } from './routes/health'
+import { invitationsRouter } from './routes/invitations'
+import { mailboxRouter } from './routes/mailbox'
 import { projectRouter, projectsRouter } from './routes/projects'
 import { usersRouter } from './routes/users'
 
@@ -83,7 +85,10 @@ export function createApp({ db, pool, env, logger, jobs }: AppDeps) {
   // routers
   app.use('/api/health', healthRouter(db))
   app.use('/api/auth', authRouter(db, passport, env.LOGIN_ATTEMPTS_PER_WINDOW))
+  app.use('/api/auth', passwordResetRouter(db, env))
   app.use('/api/users', usersRouter(db))
+  app.use('/api/invitations', invitationsRouter(db, env))
+  app.use('/api/dev/mailbox', mailboxRouter(db, env))
   app.use('/api/projects', requireSignedIn, projectsRouter(db))
   app.use(
     '/api/projects/:projectId',

@@ -15,6 +15,14 @@ const EnvSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOGIN_ATTEMPTS_PER_WINDOW: z.coerce.number().int().positive().default(10),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(50),
+  /** Outgoing mail; the default is the local fake SMTP server that start.sh and dev.sh run. */
+  SMTP_URL: z.string().url().default('smtp://127.0.0.1:2525'),
+  MAIL_FROM: z.string().min(3).default('Downdip <no-reply@downdip.test>'),
+  /** Where links in mails point: the address users open the app at. */
+  APP_URL: z.string().url().default('http://127.0.0.1:3000'),
+  /** '0' when SMTP_URL is a real server: the fake is not started and the dev mailbox is off. */
+  FAKE_SMTP: z.enum(['0', '1']).default('1'),
+  FAKE_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(2525),
 })
 
 export type Env = z.infer<typeof EnvSchema>

@@ -3,14 +3,14 @@ import { createDb } from './db/client'
 import { loadEnv } from './env'
 import { createLogger } from './logger'
 import { startJobQueue } from './jobs/queue'
-import { importCommitJob } from './jobs/handlers'
+import { importCommitJob, packBuildJob } from './jobs/handlers'
 
 const env = loadEnv()
 const logger = createLogger(env.LOG_LEVEL)
 const { db, pool } = createDb(env.DATABASE_URL)
 const jobs = await startJobQueue(
   env.DATABASE_URL,
-  { 'import-commit': importCommitJob(db, pool, logger) },
+  { 'import-commit': importCommitJob(db, pool, logger), 'pack-build': packBuildJob(db, logger) },
   logger,
 )
 const app = createApp({ db, pool, env, logger, jobs })

@@ -3,6 +3,7 @@ import type { Db } from '../db/client'
 import { ApiError } from '../http/errors'
 import type { Logger } from '../logger'
 import { commitImport } from '../services/imports'
+import { runPackBuild } from '../exports/pack-build'
 import type { JobHandler } from './queue'
 
 /**
@@ -19,6 +20,22 @@ export function importCommitJob(db: Db, pool: pg.Pool, logger: Logger): JobHandl
         logger.warn({ importId, code: err.code }, 'import refused')
         return
       }
+      throw err
+    }
+  }
+}
+
+/**
+ * Builds a queued design pack. The build starts from scratch each time, so a retry after a crash
+ * (pg-boss) is safe; a failure is recorded on the pack and, unless final, rethrown for a retry.
+ */
+export function packBuildJob(db: Db, logger: Logger): JobHandler {
+  return async (data) => {
+    const packId = String(data.packId)
+    try {
+      await runPackBuild(db, packId)
+    } catch (err: unknown) {
+      logger.warn({ packId, err }, 'pack build failed')
       throw err
     }
   }

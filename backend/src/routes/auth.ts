@@ -3,9 +3,12 @@ import { rateLimit } from 'express-rate-limit'
 import type { PassportStatic } from 'passport'
 import { z } from 'zod'
 import type { Db } from '../db/client'
+import type { Env } from '../env'
 import { csrfTokenFor, newCsrfToken } from '../auth/csrf'
 import { ApiError, unauthorized } from '../http/errors'
 import { inputOf, validate } from '../http/validate'
+import { requestPasswordReset, resetPassword } from '../mail/password-reset'
+import { configureMail } from '../mail/transport'
 import { membershipsOf } from '../services/memberships'
 
 const LoginBody = z.object({
@@ -60,6 +63,60 @@ export function authRouter(db: Db, passport: PassportStatic, attemptsPerWindow: 
   router.get('/me', async (req, res) => {
     if (!req.user) throw unauthorized()
     res.json({ data: { user: req.user, memberships: await membershipsOf(db, req.user.id) } })
+  })
+
+  return router
+}
+
+const RESET_ANSWER_FLOOR_MS = 250
+const ResetRequestBody = z.object({ email: z.string().trim().email().max(254) }).strict()
+const ResetBody = z
+  .object({
+    token: z.string().regex(/^[A-Za-z0-9_-]{43}$/, 'not a reset token'),
+    password: z.string().min(10).max(200),
+  })
+  .strict()
+
+/** /api/auth/reset-request and /api/auth/reset: a forgotten password, by a mailed link. */
+export function passwordResetRouter(db: Db, env: Env): Router {
+  configureMail(env)
+  const router = Router()
+  const limiter = (skipSuccessfulRequests: boolean) =>
+    rateLimit({
+      windowMs: 15 * 60 * 1000,
+      limit: env.LOGIN_ATTEMPTS_PER_WINDOW,
+      skipSuccessfulRequests,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      handler: (_req, _res, next) =>
+        next(new ApiError(429, 'too_many_attempts', 'Too many attempts: wait 15 minutes.')),
+    })
+  // Every reset request counts (the answer is always 200), so no one floods a mailbox; for the
+  // reset itself only failures count, as for sign-in: they are guesses at a token.
+  const requestLimiter = limiter(false)
+  const resetLimiter = limiter(true)
+
+  router.post(
+    '/reset-request',
+    requestLimiter,
+    validate({ body: ResetRequestBody }),
+    async (_req, res) => {
+      const { body } = inputOf(res, { body: ResetRequestBody })
+      const started = Date.now()
+      await requestPasswordReset(db, body.email)
+      // A floor on the answer time hides the extra writes made when the account exists.
+      const wait = RESET_ANSWER_FLOOR_MS - (Date.now() - started)
+      if (wait > 0) await new Promise((resolve) => setTimeout(resolve, wait))
+      res.json({
+        data: { ok: true, message: 'If that address has an account, a reset link is on its way.' },
+      })
+    },
+  )
+
+  router.post('/reset', resetLimiter, validate({ body: ResetBody }), async (req, res) => {
+    const { body } = inputOf(res, { body: ResetBody })
+    await resetPassword(db, body, req.sessionID)
+    res.json({ data: { ok: true } })
   })
 
   return router

@@ -7,16 +7,19 @@ import {
   IntervalCreateBody,
   IntervalUpdateBody,
   MembersBody,
+  ReopenBody,
+  ReviewBody,
   SetCreateBody,
   SetUpdateBody,
   SuggestQuery,
 } from '../../../schema/index'
 import type { Db } from '../db/client'
-import { requireRole } from '../auth/guards'
+import { projectLocals, requireRole } from '../auth/guards'
 import { notFound } from '../http/errors'
 import { inputOf, validate } from '../http/validate'
 import { holeOf } from './holes'
 import { analyseInterval } from '../services/analysis'
+import { reviewStep, submitForChecking } from '../services/review'
 import {
   createInterval,
   deleteInterval,
@@ -82,6 +85,21 @@ export function intervalsRouter(db: Db): Router {
     const { interval } = await intervalOf(db, req, res)
     const { query } = inputOf(res, { query: AnalysisQuery })
     res.json({ data: await analyseInterval(db, interval, query) })
+  })
+
+  for (const step of ['check', 'approve', 'reopen'] as const) {
+    const Body = step === 'reopen' ? ReopenBody : ReviewBody
+    router.post(`/:intervalId/${step}`, engineer, validate({ body: Body }), async (req, res) => {
+      const { hole, interval } = await intervalOf(db, req, res)
+      const { body } = inputOf(res, { body: Body })
+      const actor = { id: req.user!.id, name: req.user!.name, role: projectLocals(res).role }
+      res.json({ data: await reviewStep(db, actor, hole, interval.id, step, body) })
+    })
+  }
+  router.post('/:intervalId/submit', requireRole('logger'), async (req, res) => {
+    const { hole, interval } = await intervalOf(db, req, res)
+    const actor = { id: req.user!.id, name: req.user!.name, role: projectLocals(res).role }
+    res.json({ data: await submitForChecking(db, actor, hole, interval) })
   })
 
   router.get('/:intervalId/sets/suggest', validate({ query: SuggestQuery }), async (req, res) => {

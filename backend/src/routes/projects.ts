@@ -11,6 +11,9 @@ import { projectLocals, requireAdmin, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
 import { holesRouter } from './holes'
 import { domainsRouter } from './domains'
+import { packsRouter } from './packs'
+import { commentsRouter } from './comments'
+import { auditRouter } from './audit'
 import type { ImportDeps } from './imports'
 import {
   addMember,
@@ -44,6 +47,9 @@ export function projectRouter(deps: ImportDeps): Router {
   const router = Router({ mergeParams: true })
   router.use('/holes', holesRouter(deps))
   router.use('/domains', domainsRouter(db))
+  router.use('/packs', packsRouter({ db, jobs: deps.jobs }))
+  router.use('/comments', commentsRouter(db))
+  router.use('/audit', auditRouter(db))
   router.get('/', (_req, res) => {
     const { project, role } = projectLocals(res)
     res.json({ data: { ...project, role } })

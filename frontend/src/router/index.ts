@@ -44,6 +44,13 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: members, title: 'Hole' },
   },
   {
+    path: '/projects/:projectId/audit',
+    name: 'audit',
+    component: () => import('../views/AuditView.vue'),
+    props: true,
+    meta: { roles: ['engineer', 'lead'], title: 'Audit trail' },
+  },
+  {
     path: '/projects/:projectId/holes/:holeId/depth',
     name: 'hole-depth',
     component: () => import('../views/DepthView.vue'),
@@ -58,10 +65,41 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: members, title: 'Interval' },
   },
   {
+    path: '/projects/:projectId/packs',
+    name: 'packs',
+    component: () => import('../views/PacksView.vue'),
+    props: true,
+    meta: { roles: members, title: 'Design packs' },
+  },
+  {
     path: '/admin/users',
     name: 'admin-users',
     component: () => import('../views/AdminUsersView.vue'),
     meta: { roles: ['admin'], title: 'Users' },
+  },
+  {
+    path: '/admin/mailbox',
+    name: 'dev-mailbox',
+    component: () => import('../views/DevMailboxView.vue'),
+    meta: { roles: ['admin'], title: 'Dev mailbox' },
+  },
+  {
+    path: '/invitations/accept',
+    name: 'accept-invitation',
+    component: () => import('../views/AcceptInvitationView.vue'),
+    meta: { public: true, title: 'Join' },
+  },
+  {
+    path: '/forgot-password',
+    name: 'forgot-password',
+    component: () => import('../views/ForgotPasswordView.vue'),
+    meta: { public: true, title: 'Forgot password' },
+  },
+  {
+    path: '/reset-password',
+    name: 'reset-password',
+    component: () => import('../views/ResetPasswordView.vue'),
+    meta: { public: true, title: 'New password' },
   },
   {
     path: '/:pathMatch(.*)*',
