@@ -34,6 +34,6 @@ if [ "${FAKE_SMTP:-1}" != 0 ]; then
   node_modules/.bin/tsx backend/src/mail/fake-smtp-cli.ts &
   smtp_pid=$!
 fi
-npx tsx backend/src/server.ts &
+node_modules/.bin/tsx backend/src/server.ts &
 server_pid=$!
 wait "$server_pid" || true

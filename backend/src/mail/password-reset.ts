@@ -1,0 +1,79 @@
+import { and, eq, ne, sql } from 'drizzle-orm'
+import { sessions, users } from '../../../schema/index'
+import type { Db } from '../db/client'
+import { hashPassword } from '../auth/passport'
+import { audit } from '../services/audit'
+import { claimToken, issueToken, RESET_TTL_MINUTES, tokenInvalid } from '../services/tokens'
+import { resetMail } from './messages'
+import { appLink, mailLogger, sendMail } from './transport'
+
+/**
+ * Issues and mails a reset link when the e-mail belongs to an enabled account; otherwise does
+ * nothing. The mail is sent in the background so both paths answer in about the same time and
+ * the answer never tells whether the account exists.
+ */
+export async function requestPasswordReset(db: Db, email: string): Promise<void> {
+  const [user] = await db
+    .select()
+    .from(users)
+    .where(eq(sql`lower(${users.email})`, email.toLowerCase()))
+  if (!user || user.disabled) return
+  const { token, row } = await db.transaction(async (tx) => {
+    const issued = await issueToken(tx, {
+      purpose: 'reset',
+      email: user.email,
+      userId: user.id,
+      ttlMs: RESET_TTL_MINUTES * 60_000,
+    })
+    await audit(tx, {
+      projectId: null,
+      userId: user.id,
+      entity: 'password_reset',
+      entityId: issued.row.id,
+      action: 'request',
+    })
+    return issued
+  })
+  const link = appLink(`/reset-password?token=${token}`)
+  const mail = resetMail({ name: user.name, link, minutes: RESET_TTL_MINUTES })
+  void sendMail({ to: user.email, ...mail }).catch((err: unknown) =>
+    mailLogger().warn({ err, tokenId: row.id }, 'reset mail not sent'),
+  )
+}
+
+/**
+ * Sets the new password, uses up the token and ends the user's other sessions (all but
+ * `keepSessionId`), in one transaction.
+ */
+export async function resetPassword(
+  db: Db,
+  input: { token: string; password: string },
+  keepSessionId: string,
+): Promise<void> {
+  const passwordHash = await hashPassword(input.password)
+  await db.transaction(async (tx) => {
+    const token = await claimToken(tx, 'reset', input.token)
+    if (!token.userId) throw tokenInvalid()
+    const [user] = await tx
+      .update(users)
+      .set({ passwordHash, version: sql`${users.version} + 1`, updatedAt: new Date() })
+      .where(and(eq(users.id, token.userId), eq(users.disabled, false)))
+      .returning({ id: users.id })
+    if (!user) throw tokenInvalid()
+    await tx
+      .delete(sessions)
+      .where(
+        and(
+          sql`${sessions.sess}->'passport'->>'user' = ${String(user.id)}`,
+          ne(sessions.sid, keepSessionId),
+        ),
+      )
+    await audit(tx, {
+      projectId: null,
+      userId: user.id,
+      entity: 'user',
+      entityId: user.id,
+      action: 'password_reset',
+    })
+  })
+}
