@@ -134,7 +134,9 @@ const clearable = [
 export const StructureUpdateBody = z
   .object({
     ...structureFields,
-    ...Object.fromEntries(clearable.map((k) => [k, structureFields[k].unwrap().nullable().optional()])),
+    ...Object.fromEntries(
+      clearable.map((k) => [k, structureFields[k].unwrap().nullable().optional()]),
+    ),
   } as typeof structureFields)
   .partial()
   .extend({ version })

@@ -246,8 +246,19 @@ describe('PATCH / DELETE structures', () => {
   })
 
   it('PATCH structures/:structureId with null clears an attribute', async () => {
-    const s = (await logger.post(`${base()}/structures`, { depth: 13, type: 'joint', alpha: 60, beta: 5, jrc: 8 })).body.data
-    const res = await logger.patch(`${base()}/structures/${s.id}`, { version: s.version, jrc: null })
+    const s = (
+      await logger.post(`${base()}/structures`, {
+        depth: 13,
+        type: 'joint',
+        alpha: 60,
+        beta: 5,
+        jrc: 8,
+      })
+    ).body.data
+    const res = await logger.patch(`${base()}/structures/${s.id}`, {
+      version: s.version,
+      jrc: null,
+    })
     expect(res.status).toBe(200)
     expect(res.body.data.jrc).toBeNull()
   })
