@@ -1,0 +1,134 @@
+import {
+  AGS_EDITION,
+  SET_GROUP,
+  SET_GROUP_DESCRIPTION,
+  typeDescriptions,
+  unitDescriptions,
+} from './ags4-dictionary'
+import { headingsOf, writeAgsTables, type AgsTable } from './ags4-format'
+import {
+  coreTable,
+  discTable,
+  discTypeCodes,
+  fracTable,
+  hornTable,
+  locaTable,
+  setTable,
+} from './ags4-tables'
+import type { PackData } from './pack-data'
+import { CAUTIONS } from './cautions'
+
+/** Descriptions of the PA codes we write (ABBR_DESC). */
+const abbrDescriptions: Record<string, Record<string, string>> = {
+  LOCA_TYPE: { RC: 'Rotary cored borehole' },
+  DICT_TYPE: { GROUP: 'Flag: a group definition', HEADING: 'Flag: a heading definition' },
+  DICT_STAT: { KEY: 'Key field', REQUIRED: 'Required field', OTHER: 'Other field' },
+  DISC_TYPE: Object.fromEntries(Object.values(discTypeCodes)),
+}
+
+export interface AgsMeta {
+  packId: string
+  generatedAt: Date
+}
+
+/**
+ * The pack's AGS4 file: project, transmission, the meta groups (UNIT, TYPE, ABBR, DICT) listing
+ * every unit, type, code and user-defined heading used, then LOCA, HORN, CORE, DISC, FRAC and DSET.
+ */
+export function writeAgs(data: PackData, meta: AgsMeta): string {
+  const p = data.project
+  const proj: AgsTable = {
+    name: 'PROJ',
+    headings: headingsOf('PROJ'),
+    rows: [
+      {
+        PROJ_ID: p.code,
+        PROJ_NAME: p.name,
+        PROJ_MEMO: `${CAUTIONS.join(' ')} Set statistics are Terzaghi-weighted.`,
+      },
+    ],
+  }
+  const tran: AgsTable = {
+    name: 'TRAN',
+    headings: headingsOf('TRAN'),
+    rows: [
+      {
+        TRAN_ISNO: meta.packId.slice(0, 8),
+        TRAN_DATE: meta.generatedAt.toISOString().slice(0, 10),
+        TRAN_PROD: 'Downdip',
+        TRAN_STAT: 'Design pack',
+        TRAN_AGS: AGS_EDITION,
+        TRAN_DLIM: '|',
+        TRAN_RCON: '+',
+      },
+    ],
+  }
+  const body = [locaTable(data), hornTable(data), coreTable(data), discTable(data), fracTable(data)]
+  const sets = setTable(data)
+  const dict = dictTable([...body, sets])
+  const described = [proj, tran, dict, ...body, sets]
+  const abbr = abbrTable(described)
+  const unitsAndTypes = [...described, abbr]
+  const unit: AgsTable = {
+    name: 'UNIT',
+    headings: headingsOf('UNIT'),
+    rows: [...new Set(unitsAndTypes.flatMap((t) => t.headings.map((h) => h.unit)))]
+      .filter((x) => x !== '')
+      .sort()
+      .map((x) => ({ UNIT_UNIT: x, UNIT_DESC: unitDescriptions[x] ?? x })),
+  }
+  const typeTable: AgsTable = {
+    name: 'TYPE',
+    headings: headingsOf('TYPE'),
+    // The TYPE group's own headings are X, so X is always listed.
+    rows: [...new Set([...unitsAndTypes, unit].flatMap((t) => t.headings.map((h) => h.type)))]
+      .sort()
+      .map((x) => ({ TYPE_TYPE: x, TYPE_DESC: typeDescriptions[x] ?? x })),
+  }
+  return writeAgsTables([proj, tran, unit, typeTable, abbr, dict, ...body, sets])
+}
+
+/** DICT: our user-defined group and every user-defined heading, with status, type and unit. */
+function dictTable(tables: AgsTable[]): AgsTable {
+  const rows: Record<string, string>[] = []
+  for (const t of tables) {
+    if (t.name === SET_GROUP)
+      rows.push({
+        DICT_TYPE: 'GROUP',
+        DICT_GRP: SET_GROUP,
+        DICT_STAT: 'OTHER',
+        DICT_DESC: SET_GROUP_DESCRIPTION,
+        DICT_PGRP: 'LOCA',
+      })
+    for (const h of t.headings.filter((x) => x.user))
+      rows.push({
+        DICT_TYPE: 'HEADING',
+        DICT_GRP: t.name,
+        DICT_HDNG: h.name,
+        DICT_STAT: h.status,
+        DICT_DTYP: h.type,
+        DICT_DESC: h.description,
+        DICT_UNIT: h.unit,
+      })
+  }
+  return { name: 'DICT', headings: headingsOf('DICT'), rows }
+}
+
+/** ABBR: every PA code the other groups use, with its description. */
+function abbrTable(tables: AgsTable[]): AgsTable {
+  const seen = new Set<string>()
+  const rows: Record<string, string>[] = []
+  for (const t of tables)
+    for (const h of t.headings.filter((x) => x.type === 'PA'))
+      for (const r of t.rows) {
+        const code = r[h.name]
+        if (!code || seen.has(`${h.name}|${code}`)) continue
+        seen.add(`${h.name}|${code}`)
+        rows.push({
+          ABBR_HDNG: h.name,
+          ABBR_CODE: code,
+          ABBR_DESC: abbrDescriptions[h.name]?.[code] ?? code,
+        })
+      }
+  return { name: 'ABBR', headings: headingsOf('ABBR'), rows }
+}

@@ -1,0 +1,57 @@
+import {
+  greatCircle,
+  project,
+  smallCircle,
+  type Line,
+  type NetPoint,
+  type NetProjection,
+} from '../../../orient/index'
+import type { Analysis } from './pack-data'
+
+/** One interval's net in unit-radius coordinates (x east, y north), from orient's projection. */
+export interface NetFigure {
+  poles: { point: NetPoint; setIndex: number }[]
+  circles: { setIndex: number; points: NetPoint[] }[]
+  cones: { setIndex: number; points: NetPoint[] }[]
+  intersections: { point: NetPoint; label: string }[]
+  setNames: string[]
+}
+
+const projected = (lines: Line[] | undefined, projection: NetProjection) =>
+  (lines ?? []).map((l) => project(l, projection)).filter((p): p is NetPoint => p !== undefined)
+
+/**
+ * Poles coloured by set, each set's mean great circle and its alpha95 cone about the mean pole,
+ * and the set-pair intersections.
+ */
+export function netFigure(analysis: Analysis, projection: NetProjection): NetFigure {
+  const setIndex = new Map(analysis.sets.map((s, i) => [s.id, i]))
+  const poles = analysis.structures
+    .filter((s) => s.poleTrend !== null && s.polePlunge !== null)
+    .map((s) => ({
+      point: project({ trend: s.poleTrend!, plunge: s.polePlunge! }, projection)!,
+      setIndex: s.setId === null ? -1 : (setIndex.get(s.setId) ?? -1),
+    }))
+    .filter((p) => p.point !== undefined)
+  const circles = analysis.sets.flatMap((s, i) =>
+    s.mean ? [{ setIndex: i, points: projected(greatCircle(s.mean, 90), projection) }] : [],
+  )
+  const cones = analysis.sets.flatMap((s, i) =>
+    s.meanPole && s.alpha95
+      ? (smallCircle(s.meanPole, s.alpha95, 90) ?? []).map((arc) => ({
+          setIndex: i,
+          points: projected(arc, projection),
+        }))
+      : [],
+  )
+  const intersections = analysis.intersections.flatMap((x) => {
+    if (x.trend === null || x.plunge === null) return []
+    const point = project({ trend: x.trend, plunge: x.plunge }, projection)
+    return point ? [{ point, label: `${x.nameA}/${x.nameB}` }] : []
+  })
+  return { poles, circles, cones, intersections, setNames: analysis.sets.map((s) => s.name) }
+}
+
+/** Set colours of our own (one per set, repeating); unassigned poles are grey. */
+export const setColours = ['#0f766e', '#b45309', '#7c3aed', '#be123c', '#1d4ed8', '#4d7c0f']
+export const colourOf = (i: number) => (i < 0 ? '#8a8f98' : setColours[i % setColours.length])

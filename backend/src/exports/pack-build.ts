@@ -1,0 +1,84 @@
+import { and, eq } from 'drizzle-orm'
+import { z } from 'zod'
+import { packFiles, packs, projects, users } from '../../../schema/index'
+import type { Db } from '../db/client'
+import { ApiError } from '../http/errors'
+import { loadPackData } from './pack-data'
+import { buildPackFiles } from './pack-files'
+
+/** The request body of a pack build; an empty body packs the whole project. */
+export const PackSelectionBody = z
+  .object({
+    holeIds: z.array(z.number().int().positive()).max(500).optional(),
+    intervalIds: z.array(z.number().int().positive()).max(2000).optional(),
+  })
+  .strict()
+
+/** A stored selection: the request plus what the build resolved it to. */
+export const StoredSelection = PackSelectionBody.extend({
+  packed: z.object({ holeIds: z.array(z.number()), intervalIds: z.array(z.number()) }).optional(),
+}).catch({})
+
+/**
+ * Builds a pack from scratch (its old files deleted first), so a retried job after a crash gives
+ * the same result. Progress and message are written as it goes; it ends `ready` or `failed`.
+ * A refusal (the selection no longer exists) is final; other errors are rethrown for a retry.
+ */
+export async function runPackBuild(db: Db, packId: string): Promise<void> {
+  const [pack] = await db.select().from(packs).where(eq(packs.id, packId))
+  if (!pack || pack.status === 'issued') return
+  const step = (progress: number, message: string) =>
+    db
+      .update(packs)
+      .set({ progress, message })
+      .where(and(eq(packs.id, packId), eq(packs.status, 'building')))
+      .then(() => undefined)
+  await db.delete(packFiles).where(eq(packFiles.packId, packId))
+  await db
+    .update(packs)
+    .set({ status: 'building', progress: 5, message: 'Reading data', contentHash: null })
+    .where(eq(packs.id, packId))
+  try {
+    const [project] = await db.select().from(projects).where(eq(projects.id, pack.projectId))
+    const [who] = pack.createdBy
+      ? await db.select({ name: users.name }).from(users).where(eq(users.id, pack.createdBy))
+      : []
+    const { packed: _packed, ...selection } = StoredSelection.parse(pack.selection)
+    const data = await loadPackData(db, project, selection)
+    const packed = {
+      holeIds: data.holes.map((h) => h.id),
+      intervalIds: data.intervals.map((i) => i.interval.id),
+    }
+    await db
+      .update(packs)
+      .set({
+        selection: { ...selection, packed },
+        inputsHash: data.inputsHash,
+        progress: 30,
+        message: 'Data read; writing files',
+      })
+      .where(eq(packs.id, packId))
+    const files = await buildPackFiles(
+      data,
+      { packId, builtBy: who?.name ?? 'unknown', builtAt: new Date() },
+      step,
+    )
+    await db.transaction(async (tx) => {
+      const [still] = await tx.select().from(packs).where(eq(packs.id, packId)).for('update')
+      if (!still || still.status !== 'building') return
+      await tx.delete(packFiles).where(eq(packFiles.packId, packId))
+      await tx.insert(packFiles).values(files.map((f) => ({ ...f, packId })))
+      await tx
+        .update(packs)
+        .set({ status: 'ready', progress: 100, message: `Ready: ${files.length} files` })
+        .where(eq(packs.id, packId))
+    })
+  } catch (err: unknown) {
+    const message = err instanceof Error ? err.message : String(err)
+    await db
+      .update(packs)
+      .set({ status: 'failed', message: `Build failed: ${message}`.slice(0, 1000) })
+      .where(and(eq(packs.id, packId), eq(packs.status, 'building')))
+    if (!(err instanceof ApiError)) throw err
+  }
+}

@@ -1,0 +1,197 @@
+import { and, asc, eq, inArray } from 'drizzle-orm'
+import {
+  AnalysisQuery,
+  domains,
+  holes,
+  intervals,
+  setMembers,
+  structures,
+  structureSets,
+  surveyStations,
+  type Hole,
+  type Interval,
+  type Project,
+  type Structure,
+  type SurveyStation,
+} from '../../../schema/index'
+import type { Executor } from '../db/client'
+import { badRequest } from '../http/errors'
+import { analyseInterval } from '../services/analysis'
+import { listRuns } from '../services/runs'
+import { sha256Hex, canonicalJson } from './hash'
+import { intervalRunSummary, type RunSummary } from './run-summary'
+
+export interface PackSelection {
+  holeIds?: number[]
+  intervalIds?: number[]
+}
+
+/** Set statistics in a pack are always Terzaghi-weighted (stated in every file that shows them). */
+export const PACK_ANALYSIS = AnalysisQuery.parse({ weighting: 'terzaghi' })
+
+export type Analysis = Awaited<ReturnType<typeof analyseInterval>>
+export type RunWithMetrics = Awaited<ReturnType<typeof listRuns>>[number]
+
+export interface PackInterval {
+  interval: Interval
+  hole: Hole
+  domain: string
+  analysis: Analysis
+  runs: RunSummary
+}
+
+export interface PackData {
+  project: Project
+  holes: Hole[]
+  stations: SurveyStation[]
+  runs: Map<number, RunWithMetrics[]>
+  structures: Structure[]
+  intervals: PackInterval[]
+  /** Structure id → its interval and set names (first interval that holds it). */
+  assignment: Map<number, { interval: string; intervalId: number; set: string }>
+  inputsHash: string
+}
+
+/**
+ * Reads everything a pack shows, once: the selected holes and intervals (an empty selection is the
+ * whole project), their structures, runs and surveys, and each interval's analysis. The SHA-256 of
+ * the canonical JSON of every row read is the pack's inputs hash.
+ */
+export async function loadPackData(
+  db: Executor,
+  project: Project,
+  selection: PackSelection,
+): Promise<PackData> {
+  const allHoles = await db
+    .select()
+    .from(holes)
+    .where(eq(holes.projectId, project.id))
+    .orderBy(asc(holes.name))
+  const holeIdsAll = allHoles.map((h) => h.id)
+  const allIntervals = holeIdsAll.length
+    ? await db
+        .select()
+        .from(intervals)
+        .where(inArray(intervals.holeId, holeIdsAll))
+        .orderBy(asc(intervals.holeId), asc(intervals.fromDepth))
+    : []
+  const unknownHole = (selection.holeIds ?? []).find((id) => !holeIdsAll.includes(id))
+  const unknownInterval = (selection.intervalIds ?? []).find(
+    (id) => !allIntervals.some((i) => i.id === id),
+  )
+  if (unknownHole !== undefined || unknownInterval !== undefined)
+    throw badRequest('The selection names holes or intervals outside this project.', [
+      { path: unknownHole !== undefined ? 'body.holeIds' : 'body.intervalIds', message: 'unknown' },
+    ])
+  const whole = !selection.holeIds?.length && !selection.intervalIds?.length
+  const chosenIntervals = allIntervals.filter(
+    (i) =>
+      whole ||
+      selection.intervalIds?.includes(i.id) ||
+      (!selection.intervalIds?.length && selection.holeIds?.includes(i.holeId)),
+  )
+  const holeIds = new Set<number>([
+    ...(whole ? holeIdsAll : (selection.holeIds ?? [])),
+    ...chosenIntervals.map((i) => i.holeId),
+  ])
+  const chosenHoles = allHoles.filter((h) => holeIds.has(h.id))
+  const ids = chosenHoles.map((h) => h.id)
+  const stations = ids.length
+    ? await db
+        .select()
+        .from(surveyStations)
+        .where(inArray(surveyStations.holeId, ids))
+        .orderBy(asc(surveyStations.holeId), asc(surveyStations.depth))
+    : []
+  const allStructures = ids.length
+    ? await db
+        .select()
+        .from(structures)
+        .where(inArray(structures.holeId, ids))
+        .orderBy(asc(structures.holeId), asc(structures.depth), asc(structures.id))
+    : []
+  // Only intervals chosen (not whole holes): structures inside those intervals only.
+  const byIntervalOnly = !whole && !!selection.intervalIds?.length && !selection.holeIds?.length
+  const packStructures = byIntervalOnly
+    ? allStructures.filter((s) =>
+        chosenIntervals.some(
+          (i) => i.holeId === s.holeId && s.depth >= i.fromDepth && s.depth < i.toDepth,
+        ),
+      )
+    : allStructures
+  const runs = new Map<number, RunWithMetrics[]>()
+  for (const h of chosenHoles) runs.set(h.id, await listRuns(db, h.id))
+  const domainRows = await db.select().from(domains).where(eq(domains.projectId, project.id))
+  const setRows = chosenIntervals.length
+    ? await db
+        .select()
+        .from(structureSets)
+        .where(
+          inArray(
+            structureSets.intervalId,
+            chosenIntervals.map((i) => i.id),
+          ),
+        )
+        .orderBy(asc(structureSets.id))
+    : []
+  const memberRows = setRows.length
+    ? await db
+        .select()
+        .from(setMembers)
+        .where(
+          and(
+            inArray(
+              setMembers.setId,
+              setRows.map((s) => s.id),
+            ),
+          ),
+        )
+        .orderBy(asc(setMembers.setId), asc(setMembers.structureId))
+    : []
+  const packIntervals: PackInterval[] = []
+  const assignment: PackData['assignment'] = new Map()
+  for (const interval of chosenIntervals) {
+    const hole = chosenHoles.find((h) => h.id === interval.holeId)!
+    const analysis = await analyseInterval(db, interval, PACK_ANALYSIS)
+    const setName = new Map(analysis.sets.map((s) => [s.id, s.name]))
+    for (const s of analysis.structures) {
+      if (!assignment.has(s.id))
+        assignment.set(s.id, {
+          interval: interval.name,
+          intervalId: interval.id,
+          set: s.setId === null ? '' : (setName.get(s.setId) ?? ''),
+        })
+    }
+    packIntervals.push({
+      interval,
+      hole,
+      domain: domainRows.find((d) => d.id === interval.domainId)?.name ?? '',
+      analysis,
+      runs: intervalRunSummary(runs.get(hole.id) ?? [], interval.fromDepth, interval.toDepth),
+    })
+  }
+  const inputsHash = sha256Hex(
+    canonicalJson({
+      project,
+      holes: chosenHoles,
+      stations,
+      runs: [...runs.values()].flat(),
+      structures: packStructures,
+      intervals: chosenIntervals,
+      domains: domainRows,
+      sets: setRows,
+      members: memberRows,
+      options: PACK_ANALYSIS,
+    }),
+  )
+  return {
+    project,
+    holes: chosenHoles,
+    stations,
+    runs,
+    structures: packStructures,
+    intervals: packIntervals,
+    assignment,
+    inputsHash,
+  }
+}
