@@ -1,105 +1,15 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { inject } from 'vitest'
+import { describe, expect, it } from 'vitest'
 import { eq } from 'drizzle-orm'
 import Papa from 'papaparse'
-import { holeAt, planeToCore } from '../../orient/index'
 import { intervals, projects, structures } from '../../schema/index'
-import { createApp } from '../../backend/src/app'
-import { createDb } from '../../backend/src/db/client'
-import { loadEnv } from '../../backend/src/env'
-import { createLogger } from '../../backend/src/logger'
-import { startJobQueue, type JobQueue } from '../../backend/src/jobs/queue'
-import { packBuildJob } from '../../backend/src/jobs/handlers'
 import { analyseInterval } from '../../backend/src/services/analysis'
 import { validateAgs } from '../../backend/src/exports/ags4-validate'
 import { loadPackData, PACK_ANALYSIS } from '../../backend/src/exports/pack-data'
 import { buildReport } from '../../backend/src/exports/pdf-report'
-import { clientFor, createFixture, type Client, type Fixture } from './fixture'
+import { packSuite } from './pack-setup'
 
-let fx: Fixture
-let jobs: JobQueue
-let app: ReturnType<typeof createApp>
-let close: () => Promise<unknown>
-const as: Partial<Record<string, Client>> = {}
-const url = () => `/api/projects/${fx.projectId}/packs`
-const holeUrl = () => `/api/projects/${fx.projectId}/holes/${fx.holeId}`
-const stations = [
-  { depth: 0, azimuth: 0, plunge: 60, azimuthReference: 'true' },
-  { depth: 100, azimuth: 0, plunge: 60, azimuthReference: 'true' },
-]
-const planes = [
-  { dip: 50, dipDirection: 190 },
-  { dip: 52, dipDirection: 195 },
-  { dip: 48, dipDirection: 186 },
-  { dip: 80, dipDirection: 100 },
-  { dip: 78, dipDirection: 104 },
-  { dip: 82, dipDirection: 97 },
-]
-let intervalId = 0
-
-async function waitFor(client: Client, id: string) {
-  let pack = (await client.get(`${url()}/${id}`)).body.data
-  for (let i = 0; i < 150 && !['ready', 'failed', 'issued'].includes(pack.status); i++) {
-    await new Promise((r) => setTimeout(r, 200))
-    pack = (await client.get(`${url()}/${id}`)).body.data
-  }
-  return pack
-}
-async function fileText(client: Client, id: string, name: string): Promise<Buffer> {
-  const res = await client.get(`${url()}/${id}/files/${name}`).buffer(true)
-  expect(res.status).toBe(200)
-  // supertest keeps text types as res.text and binary ones as a Buffer body.
-  return Buffer.isBuffer(res.body) ? res.body : Buffer.from(res.text, 'latin1')
-}
-
-beforeAll(async () => {
-  fx = await createFixture()
-  const { db, pool } = createDb(inject('databaseUrl'), 4)
-  const log = createLogger('silent')
-  jobs = await startJobQueue(inject('databaseUrl'), { 'pack-build': packBuildJob(db, log) }, log)
-  const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' })
-  app = createApp({ db, pool, env, logger: log, jobs })
-  close = () => jobs.stop().then(() => pool.end())
-  for (const who of ['lead', 'engineer', 'logger', 'viewer', 'outsider', 'anonymous'] as const)
-    as[who] = await clientFor(app, who)
-  const logger = as.logger!
-  await logger.put(`${holeUrl()}/survey`, { stations })
-  await logger.put(`${holeUrl()}/runs`, {
-    runs: [
-      { fromDepth: 0, toDepth: 20, recovered: 20, solid: 19, rqdLength: 18, fractureCount: 6 },
-      { fromDepth: 20, toDepth: 40, recovered: 19, solid: 15, rqdLength: 12, fractureCount: 14 },
-    ],
-  })
-  let depth = 10
-  for (const plane of planes) {
-    const core = planeToCore(plane, holeAt(stations, depth)!)!
-    await logger.post(`${holeUrl()}/structures`, {
-      depth,
-      type: 'joint',
-      alpha: core.alpha,
-      beta: core.beta,
-    })
-    depth += 3
-  }
-  await logger.post(`${holeUrl()}/structures`, { depth: 30.5, type: 'fault', alpha: 40, beta: 100 })
-  const engineer = as.engineer!
-  const created = await engineer.post(`${holeUrl()}/intervals`, {
-    name: 'upper',
-    fromDepth: 5,
-    toDepth: 40,
-    faceDip: 70,
-    faceDipDirection: 190,
-    frictionDeg: 30,
-  })
-  intervalId = created.body.data.id
-  const sets = `${holeUrl()}/intervals/${intervalId}/sets`
-  await engineer.post(sets, { name: 'J1', centreTrend: 10, centrePlunge: 40, coneAngle: 20 })
-  await engineer.post(sets, { name: 'J2', centreTrend: 280, centrePlunge: 10, coneAngle: 20 })
-})
-afterAll(async () => {
-  await close()
-  await fx.close()
-})
+const { ctx, url, waitFor, fileText } = packSuite()
+const as = ctx.as
 
 describe('POST /api/projects/:projectId/packs', () => {
   it('POST /packs → 401 signed out, 404 non-member, 403 viewer/logger/engineer, 400 foreign ids', async () => {
@@ -126,8 +36,8 @@ describe('a whole-project pack', () => {
     expect(pack.inputsHash).toMatch(/^[0-9a-f]{64}$/)
     expect(pack.files.map((f: { name: string }) => f.name)).toEqual([
       'intersections.csv',
-      `net-${intervalId}.png`,
-      `net-${intervalId}.svg`,
+      `net-${ctx.intervalId}.png`,
+      `net-${ctx.intervalId}.svg`,
       'project.ags',
       'report.pdf',
       'sets.csv',
@@ -146,8 +56,11 @@ describe('a whole-project pack', () => {
   })
 
   it('sets.csv and intersections.csv carry analyseInterval numbers (Terzaghi-weighted)', async () => {
-    const [interval] = await fx.db.select().from(intervals).where(eq(intervals.id, intervalId))
-    const analysis = await analyseInterval(fx.db, interval, PACK_ANALYSIS)
+    const [interval] = await ctx.fx.db
+      .select()
+      .from(intervals)
+      .where(eq(intervals.id, ctx.intervalId))
+    const analysis = await analyseInterval(ctx.fx.db, interval, PACK_ANALYSIS)
     expect(analysis.sets.map((s) => s.count)).toEqual([3, 3])
     const csv = Papa.parse<Record<string, string>>(
       (await fileText(as.engineer!, id, 'sets.csv')).toString(),
@@ -190,10 +103,10 @@ describe('a whole-project pack', () => {
     expect(ags).toContain('"TRAN_AGS"')
     expect(ags).toContain('"4.1.1"')
     expect(ags).toContain('must be checked by a competent person')
-    const stored = await fx.db
+    const stored = await ctx.fx.db
       .select()
       .from(structures)
-      .where(eq(structures.holeId, fx.holeId))
+      .where(eq(structures.holeId, ctx.fx.holeId))
       .orderBy(structures.depth)
     const disc = ags
       .split('\r\n\r\n')
@@ -219,9 +132,9 @@ describe('a whole-project pack', () => {
     const pdf = (await fileText(as.engineer!, id, 'report.pdf')).toString('latin1')
     expect(pdf.startsWith('%PDF-')).toBe(true)
     expect(pdf.match(/\/Type \/Page\b/g)).toHaveLength(3)
-    const svg = (await fileText(as.engineer!, id, `net-${intervalId}.svg`)).toString()
+    const svg = (await fileText(as.engineer!, id, `net-${ctx.intervalId}.svg`)).toString()
     expect(svg.match(/<circle [^>]*r="2.5"/g)).toHaveLength(7)
-    const png = await fileText(as.engineer!, id, `net-${intervalId}.png`)
+    const png = await fileText(as.engineer!, id, `net-${ctx.intervalId}.png`)
     expect(png.subarray(1, 4).toString('latin1')).toBe('PNG')
     // IHDR width and height: the 600 x 470 SVG drawn at zoom 2
     expect([png.readUInt32BE(16), png.readUInt32BE(20)]).toEqual([1200, 940])
@@ -230,8 +143,11 @@ describe('a whole-project pack', () => {
 
 describe('buildReport()', () => {
   it('buildReport() uncompressed: the set table text shows the analysed means', async () => {
-    const [project] = await fx.db.select().from(projects).where(eq(projects.id, fx.projectId))
-    const data = await loadPackData(fx.db, project, {})
+    const [project] = await ctx.fx.db
+      .select()
+      .from(projects)
+      .where(eq(projects.id, ctx.fx.projectId))
+    const data = await loadPackData(ctx.fx.db, project, {})
     const pdf = await buildReport(data, {
       packId: '00000000-0000-4000-8000-000000000000',
       builtBy: 'lead',

@@ -1,0 +1,109 @@
+import { afterAll, beforeAll, expect, inject } from 'vitest'
+import { holeAt, planeToCore } from '../../orient/index'
+import { createApp } from '../../backend/src/app'
+import { createDb } from '../../backend/src/db/client'
+import { loadEnv } from '../../backend/src/env'
+import { createLogger } from '../../backend/src/logger'
+import { startJobQueue, type JobQueue } from '../../backend/src/jobs/queue'
+import { packBuildJob } from '../../backend/src/jobs/handlers'
+import { clientFor, createFixture, type Client, type Fixture } from './fixture'
+
+/**
+ * The design-pack tests' world: the app with a pack-build worker, a client per role, a hole with a
+ * survey, two runs, six joints in two sets (entered as core angles) and a fault, and one interval
+ * with two cone sets and the demo face. Registers its own beforeAll/afterAll.
+ */
+export function packSuite() {
+  const ctx = {
+    fx: undefined as unknown as Fixture,
+    app: undefined as unknown as ReturnType<typeof createApp>,
+    as: {} as Partial<Record<string, Client>>,
+    intervalId: 0,
+  }
+  let jobs: JobQueue
+  let close: () => Promise<unknown>
+  const url = () => `/api/projects/${ctx.fx.projectId}/packs`
+  const holeUrl = () => `/api/projects/${ctx.fx.projectId}/holes/${ctx.fx.holeId}`
+  const stations = [
+    { depth: 0, azimuth: 0, plunge: 60, azimuthReference: 'true' },
+    { depth: 100, azimuth: 0, plunge: 60, azimuthReference: 'true' },
+  ]
+  const planes = [
+    { dip: 50, dipDirection: 190 },
+    { dip: 52, dipDirection: 195 },
+    { dip: 48, dipDirection: 186 },
+    { dip: 80, dipDirection: 100 },
+    { dip: 78, dipDirection: 104 },
+    { dip: 82, dipDirection: 97 },
+  ]
+
+  async function waitFor(client: Client, id: string) {
+    let pack = (await client.get(`${url()}/${id}`)).body.data
+    for (let i = 0; i < 150 && !['ready', 'failed', 'issued'].includes(pack.status); i++) {
+      await new Promise((r) => setTimeout(r, 200))
+      pack = (await client.get(`${url()}/${id}`)).body.data
+    }
+    return pack
+  }
+  async function fileText(client: Client, id: string, name: string): Promise<Buffer> {
+    const res = await client.get(`${url()}/${id}/files/${name}`).buffer(true)
+    expect(res.status).toBe(200)
+    // supertest keeps text types as res.text and binary ones as a Buffer body.
+    return Buffer.isBuffer(res.body) ? res.body : Buffer.from(res.text, 'latin1')
+  }
+
+  beforeAll(async () => {
+    ctx.fx = await createFixture()
+    const { db, pool } = createDb(inject('databaseUrl'), 4)
+    const log = createLogger('silent')
+    jobs = await startJobQueue(inject('databaseUrl'), { 'pack-build': packBuildJob(db, log) }, log)
+    const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' })
+    ctx.app = createApp({ db, pool, env, logger: log, jobs })
+    close = () => jobs.stop().then(() => pool.end())
+    for (const who of ['lead', 'engineer', 'logger', 'viewer', 'outsider', 'anonymous'] as const)
+      ctx.as[who] = await clientFor(ctx.app, who)
+    const logger = ctx.as.logger!
+    await logger.put(`${holeUrl()}/survey`, { stations })
+    await logger.put(`${holeUrl()}/runs`, {
+      runs: [
+        { fromDepth: 0, toDepth: 20, recovered: 20, solid: 19, rqdLength: 18, fractureCount: 6 },
+        { fromDepth: 20, toDepth: 40, recovered: 19, solid: 15, rqdLength: 12, fractureCount: 14 },
+      ],
+    })
+    let depth = 10
+    for (const plane of planes) {
+      const core = planeToCore(plane, holeAt(stations, depth)!)!
+      await logger.post(`${holeUrl()}/structures`, {
+        depth,
+        type: 'joint',
+        alpha: core.alpha,
+        beta: core.beta,
+      })
+      depth += 3
+    }
+    await logger.post(`${holeUrl()}/structures`, {
+      depth: 30.5,
+      type: 'fault',
+      alpha: 40,
+      beta: 100,
+    })
+    const engineer = ctx.as.engineer!
+    const created = await engineer.post(`${holeUrl()}/intervals`, {
+      name: 'upper',
+      fromDepth: 5,
+      toDepth: 40,
+      faceDip: 70,
+      faceDipDirection: 190,
+      frictionDeg: 30,
+    })
+    ctx.intervalId = created.body.data.id
+    const sets = `${holeUrl()}/intervals/${ctx.intervalId}/sets`
+    await engineer.post(sets, { name: 'J1', centreTrend: 10, centrePlunge: 40, coneAngle: 20 })
+    await engineer.post(sets, { name: 'J2', centreTrend: 280, centrePlunge: 10, coneAngle: 20 })
+  })
+  afterAll(async () => {
+    await close()
+    await ctx.fx.close()
+  })
+  return { ctx, url, holeUrl, waitFor, fileText, planes, stations }
+}
