@@ -107,6 +107,8 @@ export interface Client {
   delete: (url: string) => request.Test
   /** A POST with the CSRF header and no body yet: for multipart uploads (.field, .attach). */
   postMultipart: (url: string) => request.Test
+  /** Uploads one file in the multipart field `file`. */
+  upload: (url: string, bytes: Buffer, name: string) => request.Test
   csrf: string
 }
 
@@ -129,6 +131,8 @@ export async function clientFor(app: Express, who: Actor | 'anonymous'): Promise
     patch: (url, body = {}) => agent.patch(url).set('X-CSRF-Token', csrf).send(body),
     delete: (url) => agent.delete(url).set('X-CSRF-Token', csrf),
     postMultipart: (url) => agent.post(url).set('X-CSRF-Token', csrf),
+    upload: (url, bytes, name) =>
+      agent.post(url).set('X-CSRF-Token', csrf).attach('file', bytes, name),
   }
 }
 

@@ -1,32 +1,22 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { and, eq } from 'drizzle-orm'
-import request from 'supertest'
-import type { Express } from 'express'
 import { readFileSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
 import { auditEvents, holes, imports } from '../../schema/index'
-import { PASSWORD, countRows, createFixture, holeValues, type Actor, type Fixture } from './fixture'
+import {
+  clientFor,
+  countRows,
+  createFixture,
+  holeValues,
+  type Fixture,
+  type Client,
+} from './fixture'
 
 const dir = fileURLToPath(new URL('../../testdata/las/', import.meta.url))
 const lasBytes = (name: string) => readFileSync(dir + name)
 
-/** fixture's clientFor always sends a JSON body, which supertest cannot mix with attach(). */
-async function signIn(app: Express, who: Actor) {
-  const agent = request.agent(app)
-  const csrf0 = (await agent.get('/api/auth/csrf')).body.data.csrfToken as string
-  const login = await agent
-    .post('/api/auth/login')
-    .set('X-CSRF-Token', csrf0)
-    .send({ email: `${who}@test.example`, password: PASSWORD })
-  const csrf = login.body.data.csrfToken as string
-  return {
-    get: (url: string) => agent.get(url),
-    post: (url: string, body: object = {}) => agent.post(url).set('X-CSRF-Token', csrf).send(body),
-    upload: (url: string, bytes: Buffer, name: string) =>
-      agent.post(url).set('X-CSRF-Token', csrf).attach('file', bytes, name),
-  }
-}
-type LasClient = Awaited<ReturnType<typeof signIn>>
+type LasClient = Client
+const signIn = clientFor
 
 let fx: Fixture
 let logger: LasClient
