@@ -284,7 +284,7 @@ export interface Structure {
   updatedAt: string
 }
 
-export const csvImportKinds = ['structures', 'runs', 'survey'] as const
+export const csvImportKinds = ['structures', 'runs', 'survey', 'picks'] as const
 export type CsvImportKind = (typeof csvImportKinds)[number]
 export type ImportStatus = 'previewed' | 'queued' | 'committing' | 'committed' | 'failed'
 

@@ -38,7 +38,7 @@ const depthUnit: ImportOption = {
   initial: 'm',
 }
 
-export const importKinds: Record<CsvImportKind, ImportKindSpec> = {
+export const importKinds = {
   structures: {
     title: 'structures',
     fields: [
@@ -156,6 +156,54 @@ export const importKinds: Record<CsvImportKind, ImportKindSpec> = {
     commitNote:
       "Committing REPLACES this hole's whole survey with the stations of this file; every structure is then recomputed with it.",
   },
+} as Record<CsvImportKind, ImportKindSpec>
+
+importKinds.picks = {
+  title: 'televiewer picks',
+  fields: [
+    { name: 'depth', label: 'Depth', required: true },
+    { name: 'type', label: 'Type' },
+    { name: 'amplitude', label: 'Sinusoid height H' },
+    { name: 'diameter', label: 'Hole diameter D' },
+    { name: 'troughAzimuth', label: 'Trough azimuth' },
+    { name: 'relativeDip', label: 'Dip relative to hole' },
+    { name: 'relativeDipDirection', label: 'Relative dip direction' },
+    { name: 'quality', label: 'Quality' },
+    { name: 'comment', label: 'Comment' },
+  ],
+  options: [
+    {
+      key: 'azimuthReference',
+      label: 'Image azimuths from',
+      choices: [
+        { value: 'highside', label: 'the high side (top of hole)' },
+        { value: 'north', label: 'north' },
+      ],
+      initial: 'highside',
+    },
+    {
+      key: 'northReference',
+      label: 'North is',
+      choices: [
+        { value: 'magnetic', label: 'magnetic (corrected in the hole frame)' },
+        { value: 'true', label: 'true north' },
+      ],
+      initial: 'magnetic',
+    },
+    {
+      key: 'lengthUnit',
+      label: 'H and D in',
+      choices: [
+        { value: 'mm', label: 'millimetres' },
+        { value: 'm', label: 'metres' },
+        { value: 'in', label: 'inches' },
+      ],
+      initial: 'mm',
+    },
+    depthUnit,
+  ],
+  commitNote:
+    'Committing adds these picks as image structures, converted with the survey at each depth; picks in steep parts or taller than the hole allows are flagged.',
 }
 
 /** The options to send: those left to the project's setting are left out. */
