@@ -60,8 +60,10 @@ export function useDepthFilters(structures: Ref<DepthStructure[]>, brush: Ref<De
   const depths = computed(() => kept.value.map((s) => s.depth))
 
   const brushed = computed(() => {
-    const b = brush.value
-    return b ? kept.value.filter((s) => s.depth >= b[0] && s.depth < b[1]) : kept.value
+    if (!brush.value) return kept.value
+    // Read the limits once: the brush may be a reactive array, thousands of reads are not free.
+    const [from, to] = brush.value
+    return kept.value.filter((s) => s.depth >= from && s.depth < to)
   })
   const poles = computed(() => brushed.value.flatMap((s) => poleOfStructure(s) ?? []))
   const unoriented = computed(() => brushed.value.length - poles.value.length)

@@ -54,14 +54,19 @@ export function useDepthLayout(
     })),
   )
 
-  /** The hole's direction at the middle of the brush (or of the hole): the blind zone's axis. */
+  /**
+   * The hole's direction at the middle of the brush (or of the hole): the blind zone's axis. Kept
+   * to the half degree and the same object while it stays so, so a brush move does not retrace it.
+   */
+  let lastAxis: { trend: number; plunge: number } | null = null
   const holeAxis = computed(() => {
     const list = filters.brushed.value.length ? filters.brushed.value : data.structures.value
-    if (list.length === 0) return null
     const s = list[Math.floor(list.length / 2)]
-    return s.holeTrend === null || s.holePlunge === null
-      ? null
-      : { trend: s.holeTrend, plunge: s.holePlunge }
+    if (!s || s.holeTrend === null || s.holePlunge === null) return (lastAxis = null)
+    const half = (v: number) => Math.round(v * 2) / 2
+    const next = { trend: half(s.holeTrend), plunge: half(s.holePlunge) }
+    if (lastAxis?.trend !== next.trend || lastAxis.plunge !== next.plunge) lastAxis = next
+    return lastAxis
   })
 
   const trackKeys = computed(() => [
