@@ -8,7 +8,13 @@ import {
   type Line,
   type Plane,
 } from '../../../orient/index'
-import type { AnalysisOptions, Interval, StructureSet } from '../../../schema/index'
+import { eq } from 'drizzle-orm'
+import {
+  domains,
+  type AnalysisOptions,
+  type Interval,
+  type StructureSet,
+} from '../../../schema/index'
 import type { Executor } from '../db/client'
 import { loadIntervalData, type IntervalStructure } from './interval-data'
 
@@ -129,8 +135,11 @@ export async function analyseInterval(db: Executor, interval: Interval, options:
       })
     }
   }
+  const [domain] = interval.domainId
+    ? await db.select({ name: domains.name }).from(domains).where(eq(domains.id, interval.domainId))
+    : []
   return {
-    interval,
+    interval: { ...interval, domainName: domain?.name ?? null },
     hole: data.hole ? { trend: round(data.hole.trend), plunge: round(data.hole.plunge) } : null,
     counts: {
       total: data.structures.length,
