@@ -115,8 +115,8 @@ describe('IntervalSetTable', () => {
 })
 
 describe('IntervalIntersectionTable', () => {
-  // [pub, memory of Hoek & Bray 1981, Rock Slope Engineering, wedge example]: planes 45/105 and
-  // 70/235 intersect in a line plunging 31.2 toward 157.7 (REFERENCES.md "Planes and lines").
+  // Hoek & Bray (1981), Rock Slope Engineering, wedge example (published; from memory): planes
+  // 45/105 and 70/235 intersect in a line plunging 31.2 toward 157.7.
   it('shows orient planeIntersection and angleBetweenPlanes for a pair of set means', () => {
     const a = { dip: 45, dipDirection: 105 }
     const b = { dip: 70, dipDirection: 235 }

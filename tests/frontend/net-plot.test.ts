@@ -26,8 +26,9 @@ const pole = (
 })
 
 describe('NetPlot projection', () => {
-  // REFERENCES.md "Projections" [derived]: R = 100, line 045/30 → equal-area (50.00, −50.00),
-  // equal-angle (40.825, −40.825) in screen coordinates (y down).
+  // Derived from r = R√2 sin(c/2) (Lambert equal-area) and r = R tan(c/2) (stereographic), c = 90 −
+  // plunge: R = 100, line 045/30 → equal-area (50.00, −50.00), equal-angle (40.825, −40.825) in
+  // screen coordinates (y down).
   it('places line 045/30 at (50.00, −50.00) on an equal-area net of R = 100 [derived]', () => {
     const wrapper = mount(NetPlot, {
       props: { poles: [pole(1, 45, 30)], projection: 'equal-area', radius: 100 },
