@@ -10,6 +10,7 @@ import {
   type Hole,
   type Import,
   type Project,
+  type StructureInputT,
 } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { ApiError, conflict, notFound } from '../http/errors'
@@ -17,7 +18,7 @@ import { analyseCsv, type Analysis, type CsvImportKind } from '../imports/analys
 import { rowErrorDetails } from '../imports/csv-rows'
 import { copyStructures } from '../imports/copy-structures'
 import { audit } from './audit'
-import { computeStructures, storedInputs } from '../../../orient/index'
+import { computeStructures, storedInputs, type StructureComputed } from '../../../orient/index'
 import { insertPicks, picksToStructures } from './picks'
 import type { PickImportOptionsT } from '../imports/kinds/picks'
 import { loadComputeContext } from './structure-context'
@@ -50,6 +51,21 @@ function rowErrorsFail(a: Analysis): never {
   )
 }
 
+/** A structure as posted or imported → what computeStructures reads (a true orientation as input). */
+const computeInput = (s: StructureInputT) => ({
+  ...s,
+  source: s.source ?? 'core',
+  inputDip: s.dip,
+  inputDipDirection: s.dipDirection,
+})
+
+/** How many rows carry each flag. */
+function countFlags(computed: readonly StructureComputed[]) {
+  const counts: Record<string, number> = {}
+  for (const c of computed) for (const f of c.flags) counts[f] = (counts[f] ?? 0) + 1
+  return counts
+}
+
 /** Structures of the preview with their computed orientation, and flag counts over all rows. */
 async function structurePreview(db: Db, project: Project, hole: Hole, a: Analysis<'structures'>) {
   const ctx = await loadComputeContext(db, project, hole)
@@ -57,15 +73,9 @@ async function structurePreview(db: Db, project: Project, hole: Hole, a: Analysi
   const order = inputs.map((_, i) => i).sort((x, y) => inputs[x].depth - inputs[y].depth)
   const computed = computeStructures(
     ctx,
-    order.map((i) => ({
-      ...inputs[i],
-      source: inputs[i].source ?? 'core',
-      inputDip: inputs[i].dip,
-      inputDipDirection: inputs[i].dipDirection,
-    })),
+    order.map((i) => computeInput(inputs[i])),
   )
-  const flagCounts: Record<string, number> = {}
-  for (const c of computed) for (const f of c.flags) flagCounts[f] = (flagCounts[f] ?? 0) + 1
+  const flagCounts = countFlags(computed)
   const byRow = new Map(order.map((row, k) => [row, computed[k]]))
   const sample = a.rows
     .slice(0, SAMPLE_ROWS)
@@ -84,8 +94,7 @@ async function pickPreview(db: Db, project: Project, hole: Hole, a: Analysis<'pi
     a.options as PickImportOptionsT,
   )
   const computed = computeStructures(ctx, rows.map(storedInputs))
-  const flagCounts: Record<string, number> = {}
-  for (const c of computed) for (const f of c.flags) flagCounts[f] = (flagCounts[f] ?? 0) + 1
+  const flagCounts = countFlags(computed)
   const sample = a.rows
     .slice(0, SAMPLE_ROWS)
     .map((r, i) => ({ line: r.line, ...r.value, computed: computed[i] }))
@@ -234,15 +243,7 @@ export async function commitImport(
       const inputs = (a as Analysis<'structures'>).rows
         .map((r) => r.value)
         .sort((x, y) => x.depth - y.depth)
-      const computed = computeStructures(
-        ctx,
-        inputs.map((s) => ({
-          ...s,
-          source: s.source ?? 'core',
-          inputDip: s.dip,
-          inputDipDirection: s.dipDirection,
-        })),
-      )
+      const computed = computeStructures(ctx, inputs.map(computeInput))
       const progress = (done: number) =>
         db
           .update(imports)

@@ -12,7 +12,7 @@ import type { Db, Executor, Tx } from '../db/client'
 import { forbidden, notFound, staleVersion } from '../http/errors'
 import { roleAtLeast } from '../auth/guards'
 import { audit } from './audit'
-import { computeStructures, storedInputs } from '../../../orient/index'
+import { computeStructures, storedInputs, type ComputeContext } from '../../../orient/index'
 import { affectedRange, loadComputeContext, lockedAt } from './structure-context'
 
 export const listStructures = (db: Executor, holeId: number) =>
@@ -33,16 +33,36 @@ export function inputColumns(input: Partial<StructureInputT>) {
 }
 
 /**
- * Recomputes the hole's structures in [from, to) (all of them without a range) and writes the
- * results in one statement. Returns how many rows were written.
+ * Recomputes the hole's structures — all of them, or only those a write at the `near` depths can
+ * change (their runs: beta jumps compare neighbours) — with the survey and runs read once. Returns
+ * how many rows were written.
  */
 export async function recomputeStructures(
   tx: Executor,
   project: Project,
   hole: Hole,
-  range?: { from: number; to: number },
+  near?: number[],
 ): Promise<number> {
   const ctx = await loadComputeContext(tx, project, hole)
+  if (!near) return recomputeRange(tx, ctx, hole)
+  const ranges = new Map(
+    near.map((depth) => {
+      const r = affectedRange(ctx, depth)
+      return [`${r.from}/${r.to}`, r]
+    }),
+  )
+  let written = 0
+  for (const range of ranges.values()) written += await recomputeRange(tx, ctx, hole, range)
+  return written
+}
+
+/** Recomputes the structures in [from, to) (all without a range) and writes them in one statement. */
+async function recomputeRange(
+  tx: Executor,
+  ctx: ComputeContext,
+  hole: Hole,
+  range?: { from: number; to: number },
+): Promise<number> {
   const where = range
     ? and(
         eq(structures.holeId, hole.id),
@@ -56,7 +76,7 @@ export async function recomputeStructures(
     .where(where)
     .orderBy(asc(structures.depth), asc(structures.id))
   if (rows.length === 0) return 0
-  // Image picks keep the plane computed at import; everything else is recomputed from inputs.
+  // Every source is recomputed from its inputs: core angles, true orientation, or the raw pick.
   const computed = computeStructures(ctx, rows.map(storedInputs))
   const payload = rows.map((r, i) => ({
     id: r.id,
@@ -113,8 +133,7 @@ export async function createStructure(
         updatedBy: actor.id,
       })
       .returning({ id: structures.id })
-    const ctx = await loadComputeContext(tx, project, hole)
-    await recomputeStructures(tx, project, hole, affectedRange(ctx, input.depth))
+    await recomputeStructures(tx, project, hole, [input.depth])
     const after = await reread(tx, row.id)
     await audit(tx, {
       projectId: project.id,
@@ -160,10 +179,7 @@ export async function updateStructure(
       .where(and(eq(structures.id, id), eq(structures.version, version)))
       .returning({ id: structures.id })
     if (!updated) throw staleVersion()
-    const ctx = await loadComputeContext(tx, project, hole)
-    for (const depth of new Set([before.depth, fields.depth ?? before.depth])) {
-      await recomputeStructures(tx, project, hole, affectedRange(ctx, depth))
-    }
+    await recomputeStructures(tx, project, hole, [before.depth, fields.depth ?? before.depth])
     const after = await reread(tx, id)
     await audit(tx, {
       projectId: project.id,
@@ -194,8 +210,7 @@ export async function deleteStructure(
       .where(and(eq(structures.id, id), eq(structures.version, version)))
       .returning({ id: structures.id })
     if (!gone) throw staleVersion()
-    const ctx = await loadComputeContext(tx, project, hole)
-    await recomputeStructures(tx, project, hole, affectedRange(ctx, before.depth))
+    await recomputeStructures(tx, project, hole, [before.depth])
     await audit(tx, {
       projectId: project.id,
       userId: actor.id,
