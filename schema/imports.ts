@@ -16,7 +16,14 @@ import { users } from './users'
 const bytea = customType<{ data: Buffer }>({ dataType: () => 'bytea' })
 
 export const importKinds = ['survey', 'runs', 'structures', 'picks', 'las'] as const
-export const importStatuses = ['previewed', 'queued', 'committing', 'committed', 'failed'] as const
+export const importStatuses = [
+  'previewed',
+  'queued',
+  'committing',
+  'committed',
+  'failed',
+  'undone',
+] as const
 export const importKind = pgEnum('import_kind', importKinds)
 export const importStatus = pgEnum('import_status', importStatuses)
 
@@ -33,6 +40,8 @@ export const imports = pgTable(
     status: importStatus('status').notNull().default('previewed'),
     fileName: text('file_name').notNull(),
     file: bytea('file').notNull(),
+    /** SHA-256 (hex) of the uploaded bytes: the same file committed twice to a hole is warned of. */
+    sha256: text('sha256'),
     options: jsonb('options').notNull().default({}),
     rowCount: integer('row_count').notNull().default(0),
     errorCount: integer('error_count').notNull().default(0),
@@ -43,6 +52,10 @@ export const imports = pgTable(
     createdBy: integer('created_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     committedAt: timestamp('committed_at', { withTimezone: true }),
+    /** Rows a replacing import (runs, survey) took out, kept so that undoing it puts them back. */
+    replaced: jsonb('replaced'),
+    undoneBy: integer('undone_by').references(() => users.id, { onDelete: 'set null' }),
+    undoneAt: timestamp('undone_at', { withTimezone: true }),
   },
   (t) => [index('imports_project_idx').on(t.projectId, t.createdAt)],
 )

@@ -19,6 +19,10 @@ export const intervalStatuses = ['draft', 'checked', 'approved', 'issued'] as co
 export const intervalStatus = pgEnum('interval_status', intervalStatuses)
 export const setRules = ['cone', 'cluster'] as const
 export const setRule = pgEnum('set_rule', setRules)
+export const analysisWeightings = ['terzaghi', 'none'] as const
+export const analysisWeighting = pgEnum('analysis_weighting', analysisWeightings)
+export const contourMethods = ['kamb', 'exponential'] as const
+export const contourMethod = pgEnum('contour_method', contourMethods)
 
 /** A structural/geotechnical domain gathering intervals across holes. */
 export const domains = pgTable(
@@ -50,6 +54,12 @@ export const intervals = pgTable(
     faceDip: doublePrecision('face_dip'),
     faceDipDirection: doublePrecision('face_dip_direction'),
     frictionDeg: doublePrecision('friction_deg'),
+    // Analysis settings: stored with the interval, frozen from approval on, used by design packs.
+    weighting: analysisWeighting('weighting').notNull().default('terzaghi'),
+    contourMethod: contourMethod('contour_method').notNull().default('kamb'),
+    /** Wedge/planar lateral limit and flexural toppling limit of the kinematic screening, degrees. */
+    lateralLimitDeg: doublePrecision('lateral_limit_deg').notNull().default(20),
+    topplingLimitDeg: doublePrecision('toppling_limit_deg').notNull().default(30),
     checkedBy: integer('checked_by'),
     checkedAt: timestamp('checked_at', { withTimezone: true }),
     approvedBy: integer('approved_by'),

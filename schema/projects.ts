@@ -1,4 +1,5 @@
 import {
+  boolean,
   doublePrecision,
   integer,
   pgEnum,
@@ -11,6 +12,8 @@ import {
 import { users } from './users'
 
 export const declinationModes = ['auto', 'manual'] as const
+/** Grid convergence: computed from the CRS at each collar, or one value typed by hand. */
+export const convergenceModes = ['auto', 'manual'] as const
 export const referenceLines = ['bottom', 'top'] as const
 export const netProjections = ['equal-area', 'equal-angle'] as const
 /** Lowest to highest; a global admin counts as lead in every project. */
@@ -18,6 +21,7 @@ export const projectRoles = ['viewer', 'logger', 'engineer', 'lead'] as const
 export type ProjectRole = (typeof projectRoles)[number]
 
 export const declinationMode = pgEnum('declination_mode', declinationModes)
+export const convergenceMode = pgEnum('convergence_mode', convergenceModes)
 export const referenceLine = pgEnum('reference_line', referenceLines)
 export const netProjection = pgEnum('net_projection', netProjections)
 export const projectRole = pgEnum('project_role', projectRoles)
@@ -31,7 +35,8 @@ export const projects = pgTable('projects', {
   declinationMode: declinationMode('declination_mode').notNull().default('manual'),
   /** Magnetic declination in degrees, east positive; used when the mode is manual. */
   declinationDeg: doublePrecision('declination_deg').notNull().default(0),
-  /** Grid convergence in degrees: grid azimuth = true azimuth − convergence. */
+  convergenceMode: convergenceMode('convergence_mode').notNull().default('auto'),
+  /** Grid convergence in degrees: grid azimuth = true azimuth − convergence; used when manual. */
   gridConvergenceDeg: doublePrecision('grid_convergence_deg').notNull().default(0),
   referenceLine: referenceLine('reference_line').notNull().default('bottom'),
   /** Hole plunge (degrees below horizontal) above which core orientation is flagged unreliable. */
@@ -39,6 +44,8 @@ export const projects = pgTable('projects', {
   netProjection: netProjection('net_projection').notNull().default('equal-area'),
   /** A beta differing by more than this from the previous structure of the same type in a run is flagged. */
   betaJumpDeg: doublePrecision('beta_jump_deg').notNull().default(60),
+  /** Four eyes: the lead who approves an interval must not be the engineer who checked it. */
+  fourEyes: boolean('four_eyes').notNull().default(true),
   version: integer('version').notNull().default(1),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

@@ -1,4 +1,5 @@
 import {
+  boolean,
   customType,
   index,
   integer,
@@ -81,6 +82,8 @@ export const packs = pgTable('packs', {
     .references(() => projects.id, { onDelete: 'cascade' }),
   status: packStatus('status').notNull().default('queued'),
   selection: jsonb('selection').notNull().default({}),
+  /** True when any packed interval was not approved at build: every page says DRAFT, never issued. */
+  draft: boolean('draft').notNull().default(false),
   progress: integer('progress').notNull().default(0),
   message: text('message').notNull().default(''),
   /** SHA-256 of the inputs (rows read) and of the files, fixed at issue. */
