@@ -7,7 +7,10 @@ import { importCommitJob, packBuildJob } from './jobs/handlers'
 
 const env = loadEnv()
 const logger = createLogger(env.LOG_LEVEL)
-const { db, pool } = createDb(env.DATABASE_URL)
+// A dropped connection is logged, never fatal: the pool reconnects when the database is back.
+const { db, pool } = createDb(env.DATABASE_URL, 10, (err) =>
+  logger.warn({ err: err.message }, 'database connection lost'),
+)
 const jobs = await startJobQueue(
   env.DATABASE_URL,
   { 'import-commit': importCommitJob(db, pool, logger), 'pack-build': packBuildJob(db, logger) },

@@ -1,6 +1,13 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ApiError } from './errors'
 import type { Logger } from '../logger'
+import { isDatabaseUnavailable } from '../db/client'
+
+/** The answer while PostgreSQL is away: 503, so clients and load balancers retry later. */
+export const databaseUnavailable = () =>
+  new ApiError(503, 'database_unavailable', 'The database is not answering; try again shortly.', [
+    { path: 'database', message: 'not reachable' },
+  ])
 
 export const notFoundHandler: RequestHandler = (req) => {
   throw new ApiError(404, 'not_found', `No route for ${req.method} ${req.path}.`)
@@ -17,6 +24,10 @@ const isPgError = (err: unknown): err is PgError =>
 /** Writes every error as `{ error: { code, message, details } }` and hides internals. */
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err: unknown, _req, res, _next) => {
+    if (!(err instanceof ApiError) && isDatabaseUnavailable(err)) {
+      logger.warn({ err: (err as Error).message }, 'database unavailable')
+      err = databaseUnavailable()
+    }
     if (err instanceof ApiError) {
       res.status(err.status).json({
         error: {

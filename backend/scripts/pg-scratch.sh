@@ -1,0 +1,22 @@
+#!/usr/bin/env bash
+# A scratch PostgreSQL cluster for tests that stop and start the database under a running app:
+#   pg-scratch.sh up DIR PORT      create (if needed) and start, with the app role and database
+#   pg-scratch.sh stop DIR         stop it (fast shutdown)
+#   pg-scratch.sh start DIR PORT   start it again
+#   pg-scratch.sh down DIR         stop it and remove DIR
+source "$(dirname "$0")/lib.sh"
+ensure_postgres
+cmd="${1:?usage: pg-scratch.sh up|stop|start|down DIR [PORT]}"
+dir="${2:?data folder}"
+port="${3:-}"
+case "$cmd" in
+  up)
+    mkdir -p "$(dirname "$dir")" && chmod 755 "$(dirname "$dir")"
+    pg_cluster_up "$dir" "$port" throwaway
+    pg_ensure_database "$dir" "$port" downdip
+    ;;
+  start) pg_cluster_up "$dir" "$port" throwaway ;;
+  stop) pg_cluster_down "$dir" ;;
+  down) pg_cluster_down "$dir"; rm -rf "$dir" ;;
+  *) die "usage: pg-scratch.sh up|stop|start|down DIR [PORT]" ;;
+esac
