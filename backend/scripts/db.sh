@@ -4,7 +4,7 @@
 source "$(dirname "$0")/lib.sh"
 ensure_postgres
 PGPORT="${PGPORT:-5433}"
-PG_DATA="$(choose_data_dir "$REPO_ROOT/.data/postgres" postgres)"
+PG_DATA="$(choose_data_dir "${DOWNDIP_DATA_DIR:-$REPO_ROOT/.data/postgres}" postgres)"
 case "${1:-start}" in
   start)
     pg_cluster_up "$PG_DATA" "$PGPORT"
