@@ -13,6 +13,7 @@ import type { JobQueue } from './jobs/queue'
 import { createPassport } from './auth/passport'
 import { requireCsrfToken } from './auth/csrf'
 import { loadProject, requireSignedIn } from './auth/guards'
+import { sessionLifetime } from './auth/session-lifetime'
 import { errorHandler, notFoundHandler } from './http/error-handler'
 import { authRouter, passwordResetRouter } from './routes/auth'
 import { healthRouter } from './routes/health'
@@ -43,7 +44,8 @@ export function createApp({ db, pool, env, logger, jobs }: AppDeps) {
     createTableIfMissing: false,
     pruneSessionInterval: env.NODE_ENV === 'test' ? false : 15 * 60,
   })
-  if (env.TRUST_PROXY) app.set('trust proxy', 1)
+  // Only the configured proxies' X-Forwarded-For is believed; anyone else's is ignored.
+  app.set('trust proxy', env.TRUST_PROXY ? env.TRUST_PROXY : false)
   app.disable('x-powered-by')
 
   // security
@@ -76,11 +78,18 @@ export function createApp({ db, pool, env, logger, jobs }: AppDeps) {
         httpOnly: true,
         sameSite: 'lax',
         secure: env.TRUST_PROXY ? 'auto' : false,
-        maxAge: 12 * 60 * 60 * 1000,
+        // rolling: every answer moves the expiry on, so this is the idle timeout (cookie and store)
+        maxAge: env.SESSION_IDLE_MINUTES * 60 * 1000,
       },
     }),
   )
   app.use('/api', passport.session())
+  app.use('/api', sessionLifetime(env.SESSION_MAX_HOURS))
+  app.use('/api', (_req, res, next) => {
+    // API answers carry project data: never kept by the browser or a proxy (OWASP ASVS 4.0 V8.2.1)
+    res.set('Cache-Control', 'no-store')
+    next()
+  })
   app.use('/api', requireCsrfToken)
   // routers
   app.use('/api/health', healthRouter(db))

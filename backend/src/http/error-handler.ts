@@ -71,6 +71,17 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       })
       return
     }
+    // A NUL or a byte the database encoding cannot hold, in a value no schema checked
+    if (pgErr?.code === '22021' || pgErr?.code === '22P05') {
+      res.status(400).json({
+        error: {
+          code: 'invalid_input',
+          message: 'The request holds a character that cannot be stored (a NUL byte?).',
+          details: [],
+        },
+      })
+      return
+    }
     if (pgErr?.code === '23514') {
       res.status(400).json({
         error: {

@@ -39,9 +39,16 @@ export function singleUpload(limitMb: number): RequestHandler {
   }
 }
 
+/**
+ * Bidirectional controls (U+061C, U+200E/F, U+202A–U+202E, U+2066–U+2069) can make
+ * "report\u202Efdp.exe" read as "reportexe.pdf"; they are removed from names (Unicode TR #9).
+ */
+const bidiControls = /[\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/gu
+
 /** Keeps the last path part and drops control characters: the name is shown and sent back. */
 export function cleanFileName(name: string, fallback = 'upload'): string {
-  const base = name.slice(Math.max(name.lastIndexOf('/'), name.lastIndexOf('\\')) + 1)
+  const last = name.slice(Math.max(name.lastIndexOf('/'), name.lastIndexOf('\\')) + 1)
+  const base = last.replace(bidiControls, '')
   let clean = ''
   for (const ch of base) {
     const code = ch.codePointAt(0) ?? 0

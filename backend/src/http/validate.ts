@@ -20,6 +20,21 @@ export function zodDetails(part: string, error: z.ZodError): ErrorDetail[] {
   }))
 }
 
+/** Paths of every string holding a NUL (PostgreSQL text cannot store one), `query.entity` style. */
+export function nulPaths(value: unknown, path: string, out: string[] = []): string[] {
+  if (typeof value === 'string') {
+    if (value.includes('\u0000')) out.push(path)
+  } else if (Array.isArray(value)) {
+    value.forEach((v, i) => nulPaths(v, `${path}.${i}`, out))
+  } else if (value && typeof value === 'object') {
+    for (const [k, v] of Object.entries(value)) {
+      if (k.includes('\u0000')) out.push(`${path}.${k.replaceAll('\u0000', '\\0')}`)
+      nulPaths(v, `${path}.${k}`, out)
+    }
+  }
+  return out
+}
+
 /**
  * Validates params, query and body with zod and keeps the parsed values on `res.locals.input`
  * (Express 5's req.query is read-only). Any failure → 400 naming every bad field.
@@ -31,6 +46,11 @@ export function validate<S extends Schemas>(schemas: S): RequestHandler {
     for (const part of ['params', 'query', 'body'] as const) {
       const schema = schemas[part]
       if (!schema) continue
+      const nul = nulPaths(req[part], part)
+      if (nul.length) {
+        details.push(...nul.map((path) => ({ path, message: 'contains a NUL character' })))
+        continue
+      }
       const result = schema.safeParse(req[part] ?? {})
       if (result.success) input[part] = result.data
       else details.push(...zodDetails(part, result.error))

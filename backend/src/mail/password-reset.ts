@@ -1,5 +1,5 @@
-import { and, eq, ne, sql } from 'drizzle-orm'
-import { sessions, users } from '../../../schema/index'
+import { and, eq, isNull, ne, sql } from 'drizzle-orm'
+import { authTokens, sessions, users } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { hashPassword } from '../auth/passport'
 import { audit } from '../services/audit'
@@ -42,8 +42,8 @@ export async function requestPasswordReset(db: Db, email: string): Promise<void>
 }
 
 /**
- * Sets the new password, uses up the token and ends the user's other sessions (all but
- * `keepSessionId`), in one transaction.
+ * Sets the new password, uses up the token and every other outstanding reset token of the account,
+ * and ends the user's other sessions (all but `keepSessionId`), in one transaction.
  */
 export async function resetPassword(
   db: Db,
@@ -60,6 +60,18 @@ export async function resetPassword(
       .where(and(eq(users.id, token.userId), eq(users.disabled, false)))
       .returning({ id: users.id })
     if (!user) throw tokenInvalid()
+    // Every other reset link of the account dies with this one (ASVS 4.0 V2.5).
+    const revoked = await tx
+      .update(authTokens)
+      .set({ usedAt: new Date() })
+      .where(
+        and(
+          eq(authTokens.purpose, 'reset'),
+          eq(authTokens.userId, user.id),
+          isNull(authTokens.usedAt),
+        ),
+      )
+      .returning({ id: authTokens.id })
     await tx
       .delete(sessions)
       .where(
@@ -74,6 +86,7 @@ export async function resetPassword(
       entity: 'user',
       entityId: user.id,
       action: 'password_reset',
+      after: { otherResetLinksRevoked: revoked.length },
     })
   })
 }

@@ -1,5 +1,5 @@
-import { Router } from 'express'
-import { rateLimit } from 'express-rate-limit'
+import { Router, type Request } from 'express'
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
 import type { PassportStatic } from 'passport'
 import { z } from 'zod'
 import type { Db } from '../db/client'
@@ -16,42 +16,68 @@ const LoginBody = z.object({
   password: z.string().min(1).max(200),
 })
 
+/** The account a sign-in names, as the rate limiter's key (an unreadable body counts as one key). */
+function accountKey(req: Request): string {
+  const email = (req.body as { email?: unknown } | undefined)?.email
+  return `account:${typeof email === 'string' ? email.trim().toLowerCase().slice(0, 254) : '?'}`
+}
+
 export function authRouter(db: Db, passport: PassportStatic, attemptsPerWindow: number): Router {
   const router = Router()
 
-  // Failed sign-ins per client address; a successful one does not count.
-  const loginLimiter = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: attemptsPerWindow,
-    skipSuccessfulRequests: true,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next) =>
-      next(new ApiError(429, 'too_many_attempts', 'Too many sign-in attempts: wait 15 minutes.')),
-  })
+  // Failed sign-ins are counted per account (whatever address they come from, so a new address
+  // gives no fresh guesses) and per address with ten times the allowance (so one person's typos
+  // do not lock out the others behind the same address). Successful sign-ins do not count.
+  const tooMany = (what: string) =>
+    new ApiError(429, 'too_many_attempts', `Too many sign-in attempts ${what}: wait 15 minutes.`)
+  const failures = (limit: number, key: (req: Request) => string, what: string) =>
+    rateLimit({
+      windowMs: 15 * 60 * 1000,
+      limit,
+      skipSuccessfulRequests: true,
+      standardHeaders: 'draft-8',
+      legacyHeaders: false,
+      keyGenerator: key,
+      handler: (_req, _res, next) => next(tooMany(what)),
+    })
+  const accountLimiter = failures(attemptsPerWindow, accountKey, 'for this account')
+  const addressLimiter = failures(
+    attemptsPerWindow * 10,
+    (req) => ipKeyGenerator(req.ip ?? 'unknown'),
+    'from this address',
+  )
 
   router.get('/csrf', (req, res) => {
     res.json({ data: { csrfToken: csrfTokenFor(req) } })
   })
 
-  router.post('/login', loginLimiter, validate({ body: LoginBody }), async (req, res, next) => {
-    const { body } = inputOf(res, { body: LoginBody })
-    req.body = body
-    const user = await new Promise<Express.User | false>((resolve, reject) => {
-      passport.authenticate('local', { session: false }, (err: unknown, u: Express.User | false) =>
-        err ? reject(err) : resolve(u),
-      )(req, res, next)
-    })
-    if (!user) {
-      throw new ApiError(401, 'invalid_credentials', 'E-mail or password is not right.')
-    }
-    // req.login regenerates the session (fixation defence), so a fresh CSRF token follows.
-    await new Promise<void>((resolve, reject) =>
-      req.login(user, (err: unknown) => (err ? reject(err) : resolve())),
-    )
-    const csrfToken = newCsrfToken(req)
-    res.json({ data: { user, memberships: await membershipsOf(db, user.id), csrfToken } })
-  })
+  router.post(
+    '/login',
+    addressLimiter,
+    accountLimiter,
+    validate({ body: LoginBody }),
+    async (req, res, next) => {
+      const { body } = inputOf(res, { body: LoginBody })
+      req.body = body
+      const user = await new Promise<Express.User | false>((resolve, reject) => {
+        passport.authenticate(
+          'local',
+          { session: false },
+          (err: unknown, u: Express.User | false) => (err ? reject(err) : resolve(u)),
+        )(req, res, next)
+      })
+      if (!user) {
+        throw new ApiError(401, 'invalid_credentials', 'E-mail or password is not right.')
+      }
+      // req.login regenerates the session (fixation defence), so a fresh CSRF token follows.
+      await new Promise<void>((resolve, reject) =>
+        req.login(user, (err: unknown) => (err ? reject(err) : resolve())),
+      )
+      req.session.signedInAt = Date.now()
+      const csrfToken = newCsrfToken(req)
+      res.json({ data: { user, memberships: await membershipsOf(db, user.id), csrfToken } })
+    },
+  )
 
   router.post('/logout', async (req, res) => {
     await new Promise<void>((resolve, reject) =>

@@ -51,6 +51,7 @@ export function invitationsRouter(db: Db, env: Env): Router {
     await new Promise<void>((resolve, reject) =>
       req.login(user, (err: unknown) => (err ? reject(err) : resolve())),
     )
+    req.session.signedInAt = Date.now()
     const csrfToken = newCsrfToken(req)
     res.json({ data: { user, memberships: await membershipsOf(db, user.id), csrfToken } })
   })
