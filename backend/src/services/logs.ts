@@ -5,6 +5,7 @@ import { badRequest, conflict, notFound } from '../http/errors'
 import {
   LasReadError,
   curvesToStore,
+  STORED_DEPTH_RANGE,
   deviationSurvey,
   lasSummary,
   readLas,
@@ -121,6 +122,15 @@ export async function commitLasImport(
       throw conflict(`This import is already ${row.status}.`, 'import_not_previewed')
     }
     const choice = curvesToStore(readOrRefuse(row.file), options.curves, options.depthShift)
+    if (choice.outOfRange) {
+      const { min, max } = choice.outOfRange
+      throw badRequest('The shifted log depths are out of range.', [
+        {
+          path: 'body.depthShift',
+          message: `gives depths ${min.toFixed(2)}–${max.toFixed(2)} m; stored depths must lie within ${STORED_DEPTH_RANGE.min}–${STORED_DEPTH_RANGE.max} m`,
+        },
+      ])
+    }
     if (choice.unknown.length > 0) {
       const details = choice.unknown.map((u) => ({
         path: `body.curves.${u.position}`,
@@ -223,7 +233,10 @@ export async function getImportFile(db: Db, project: Project, hole: Hole, import
   return { fileName: row.fileName, bytes: row.file }
 }
 
-/** Survey stations from the import's deviation channels, for comparison only: nothing is written. */
+/**
+ * Survey stations from the import's deviation channels, for comparison only: nothing is written,
+ * so no interval is touched. Adopting them is a survey replacement, which the freeze rules guard.
+ */
 export async function surveyFromDeviation(
   db: Db,
   project: Project,

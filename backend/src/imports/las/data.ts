@@ -23,6 +23,11 @@ export interface DataResult {
 
 /** Stop collecting after this many refusals: enough to fix a file, bounded for a junk one. */
 const MAX_ERRORS = 20
+/**
+ * Largest depth index accepted, in the file's own unit: 100,000 (30 km in feet, 100 km in metres)
+ * is past any borehole; a value such as 1e308 is a corrupt file, not a depth.
+ */
+export const MAX_INDEX_DEPTH = 100_000
 
 /**
  * Reads ~A / ~Log_Data: numbers only (CWLS LAS 2.0), NULL → NaN. Unwrapped: one
@@ -54,6 +59,11 @@ export function readData(req: DataRequest): DataResult {
   const commit = (line: number) => {
     const depth = row[0]
     if (Number.isNaN(depth)) return fail(line, 'The depth of this sample is the NULL value.')
+    if (!Number.isFinite(depth) || Math.abs(depth) > MAX_INDEX_DEPTH)
+      return fail(line, `Depth ${depth} is out of range (at most ${MAX_INDEX_DEPTH} in any unit).`)
+    for (let c = 1; c < n; c++)
+      if (row[c] === Infinity || row[c] === -Infinity)
+        return fail(line, `The value of curve ${c + 1} is too large to store.`)
     if (rows > 0) {
       const step = depth - columns[0][rows - 1]
       if (direction === 0 && step !== 0) direction = Math.sign(step)

@@ -9,5 +9,11 @@ export {
   type DeviationChannels,
   type DeviationStation,
 } from './deviation'
-export { curvesToStore, float8ArrayLiteral, storedSamples, type CurveToStore } from './stored-curve'
+export {
+  curvesToStore,
+  float8ArrayLiteral,
+  storedSamples,
+  STORED_DEPTH_RANGE,
+  type CurveToStore,
+} from './stored-curve'
 export { deviationSurvey, type DeviationSurvey } from './deviation-survey'

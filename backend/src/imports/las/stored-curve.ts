@@ -59,7 +59,12 @@ export interface CurveToStore extends StoredSamples {
   valuesLiteral: string
 }
 
+/** Stored log depths (metres, after the shift) must lie in this range: a hole, not a typo. */
+export const STORED_DEPTH_RANGE = { min: -100, max: 15_000 } as const
+
 export interface CurveChoice {
+  /** Set when the shifted depths leave STORED_DEPTH_RANGE: nothing may be stored. */
+  outOfRange?: { min: number; max: number }
   curves: CurveToStore[]
   /** Chosen curves with no value at all: not stored. */
   skipped: string[]
@@ -87,6 +92,14 @@ export function curvesToStore(
         ],
   )
   const depths = depthsInMetres(file, depthShift)
+  let lo = Infinity
+  let hi = -Infinity
+  for (const d of depths) {
+    if (d < lo) lo = d
+    if (d > hi) hi = d
+  }
+  if (depths.length && (lo < STORED_DEPTH_RANGE.min || hi > STORED_DEPTH_RANGE.max))
+    return { outOfRange: { min: lo, max: hi }, curves: [], skipped: [], unknown }
   const curves: CurveToStore[] = []
   const skipped: string[] = []
   // most curves span the same samples: write their shared depth array once
