@@ -1,6 +1,6 @@
 import type { z } from 'zod'
 import { badRequest } from '../http/errors'
-import type { CsvTable } from './csv-table'
+import { cellLine, type CsvTable } from './csv-table'
 
 /** A target field of an import and the column names that suggest it. */
 export interface FieldSpec {
@@ -119,7 +119,8 @@ export function readRows<T>(
       if (f.kind === 'number') {
         const n = toNumber(text, decimalComma)
         if (typeof n === 'string') {
-          errors.push({ ...where, column: table.headers[at], message: n })
+          const line = cellLine(table, i, at)
+          errors.push({ ...where, line, column: table.headers[at], message: n })
           bad = true
         } else raw[f.name] = n
       } else raw[f.name] = text.trim() === '' ? undefined : text.trim()
@@ -135,6 +136,7 @@ export function readRows<T>(
       const at = index.get(field)
       errors.push({
         ...where,
+        line: at === undefined ? where.line : cellLine(table, i, at),
         column: at === undefined ? field : table.headers[at],
         message: issue.message,
       })
