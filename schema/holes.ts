@@ -39,6 +39,9 @@ export const holes = pgTable(
     status: holeStatus('status').notNull().default('planned'),
     /** Bumped on every survey change; stored structures record the revision they were computed with. */
     surveyRevision: integer('survey_revision').notNull().default(0),
+    /** Soft delete: hidden everywhere, restorable by a lead or admin for 30 days, then purged. */
+    deletedAt: timestamp('deleted_at', { withTimezone: true }),
+    deletedBy: integer('deleted_by'),
     version: integer('version').notNull().default(1),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

@@ -54,6 +54,13 @@ export const imports = pgTable(
     committedAt: timestamp('committed_at', { withTimezone: true }),
     /** Rows a replacing import (runs, survey) took out, kept so that undoing it puts them back. */
     replaced: jsonb('replaced'),
+    /**
+     * While committing: the attempt doing it and how long its lease runs. The attempt renews the
+     * lease as it works; a lease that lapses (the server died) marks the import failed —
+     * interrupted, and only the attempt named here may mark it committed.
+     */
+    attempt: uuid('attempt'),
+    leaseUntil: timestamp('lease_until', { withTimezone: true }),
     undoneBy: integer('undone_by').references(() => users.id, { onDelete: 'set null' }),
     undoneAt: timestamp('undone_at', { withTimezone: true }),
   },

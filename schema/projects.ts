@@ -46,6 +46,9 @@ export const projects = pgTable('projects', {
   betaJumpDeg: doublePrecision('beta_jump_deg').notNull().default(60),
   /** Four eyes: the lead who approves an interval must not be the engineer who checked it. */
   fourEyes: boolean('four_eyes').notNull().default(true),
+  /** Soft delete: hidden from members, restorable by an admin for 30 days, then purged. */
+  deletedAt: timestamp('deleted_at', { withTimezone: true }),
+  deletedBy: integer('deleted_by'),
   version: integer('version').notNull().default(1),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

@@ -86,6 +86,9 @@ export const packs = pgTable('packs', {
   draft: boolean('draft').notNull().default(false),
   progress: integer('progress').notNull().default(0),
   message: text('message').notNull().default(''),
+  /** The build attempt at work and its lease (see imports.attempt): a lapsed lease = interrupted. */
+  attempt: uuid('attempt'),
+  leaseUntil: timestamp('lease_until', { withTimezone: true }),
   /** SHA-256 of the inputs (rows read) and of the files, fixed at issue. */
   inputsHash: text('inputs_hash'),
   contentHash: text('content_hash'),
