@@ -2,71 +2,71 @@ import { ref } from 'vue'
 import { isApiError } from '../api/client'
 import type { Structure, StructureInput } from '../api/types'
 import { describeError } from '../components/format'
+import { suggestDepth } from '../components/hole/entry-depth'
 import {
-  changedFields,
   draftFromStructure,
   emptyDraft,
   type EntryDraft,
-  type EntryErrors,
   type EntryField,
   type EntrySource,
 } from '../components/hole/entry-fields'
+import { useHoleEntryEdit } from './use-hole-entry-edit'
+import { useHoleEntryQueue, type PendingRow } from './use-hole-entry-queue'
 import type { HoleStructures } from './use-hole-structures'
+
+export type { RowState } from './use-hole-entry-queue'
 
 const STEP_KEY = 'downdip.entry-step'
 const DEFAULT_STEP = 0.1
-
-/** The state of one row being typed (the new row, or a saved row edited in place). */
-export interface RowState {
-  busy: boolean
-  message: string | null
-  errors: EntryErrors
-  /** The server answered 409: someone else changed the row since it was loaded. */
-  conflict: boolean
-}
-
-const idle = (): RowState => ({ busy: false, message: null, errors: {}, conflict: false })
 
 function storedStep(): number {
   const value = Number(globalThis.localStorage?.getItem(STEP_KEY))
   return Number.isFinite(value) && value > 0 ? value : DEFAULT_STEP
 }
 
-/** Server details (`body.alpha`) → the cell they name, so the message sits in place. */
-function fieldErrors(err: unknown): EntryErrors {
-  if (!isApiError(err)) return {}
-  const out: EntryErrors = {}
-  for (const d of err.details) {
-    const field = d.path.replace(/^body\./, '') as EntryField
-    out[field] = `${field}: ${d.message}`
-  }
-  return out
+/** The row last committed from this page, as typed: F2 repeats it, the step is measured from it. */
+interface Committed {
+  key: number
+  depth: number
+  source: EntrySource
+  draft: EntryDraft
+  /** Set once the server has stored it. */
+  savedId?: number
 }
 
-const depthText = (depth: number) => String(Math.round(depth * 1000) / 1000)
-
-/** Core-entry page state: the new row, the row edited in place, the depth step, per-row messages. */
-export function useHoleEntry(structures: HoleStructures) {
+/**
+ * Core-entry page state: the new row and the cells the logger has touched in it, the save queue
+ * behind it, the row edited in place, the depth step and per-row messages. Nothing the server
+ * answers is written into a cell the logger has typed in.
+ */
+export function useHoleEntry(structures: HoleStructures, finalDepth: () => number | undefined) {
   const source = ref<EntrySource>('core')
   const attributesOpen = ref(false)
   const draft = ref<EntryDraft>(emptyDraft())
-  const state = ref<RowState>(idle())
+  const touched = ref<Partial<Record<EntryField, true>>>({})
   const step = ref(storedStep())
-  const lastSaved = ref<Structure | null>(null)
-  const editing = ref<{ row: Structure; draft: EntryDraft; state: RowState } | null>(null)
+  const lastCommitted = ref<Committed | null>(null)
   const rowMessages = ref<Record<number, string>>({})
   /** Rows saved from this page: marked in the grid so the logger sees where they left off. */
   const savedHere = ref<number[]>([])
+  const queue = useHoleEntryQueue(structures.create, onSaved, (saved) => {
+    // The server recomputed the run's other rows (beta jumps): fetch them once the queue is dry.
+    if (saved > 0) void structures.load()
+  })
+  const edit = useHoleEntryEdit(structures)
 
-  function nextDepth(from: number) {
-    return depthText(from + step.value)
+  const nextDepth = (from: number) => suggestDepth(from, step.value, finalDepth())
+
+  /** A suggestion fills the depth cell only while the logger has not typed in it. */
+  function suggest(depth: string) {
+    if (!touched.value.depth) draft.value.depth = depth
   }
 
   /** Starts from the deepest saved row when nothing has been entered yet. */
   function suggestStart() {
-    if (draft.value.depth !== '' || lastSaved.value) return
+    if (lastCommitted.value) return
     const deepest = structures.rows.value.at(-1)
-    if (deepest) draft.value.depth = nextDepth(deepest.depth)
+    if (deepest) suggest(nextDepth(deepest.depth))
   }
 
   function setStep(value: number) {
@@ -75,44 +75,50 @@ export function useHoleEntry(structures: HoleStructures) {
     globalThis.localStorage?.setItem(STEP_KEY, String(step.value))
   }
 
-  async function submitNew(input: StructureInput): Promise<Structure | null> {
-    state.value = { ...idle(), busy: true }
-    try {
-      const row = await structures.create(input)
-      const before = lastSaved.value
-      if (before && row.depth > before.depth) setStep(row.depth - before.depth)
-      lastSaved.value = row
-      savedHere.value = [...savedHere.value, row.id]
-      draft.value = emptyDraft(nextDepth(row.depth))
-      state.value = idle()
-      // The server recomputed the run's other rows (beta jumps): fetch them behind the typing.
-      void structures.load()
-      return row
-    } catch (err: unknown) {
-      state.value = {
-        ...idle(),
-        errors: fieldErrors(err),
-        message: describeError(err, 'The structure could not be saved.'),
-      }
-      return null
-    }
+  function touch(field: EntryField) {
+    touched.value[field] = true
   }
 
-  /** The last row saved here (else the deepest), one step deeper: for runs of similar structures. */
+  /**
+   * Hands the row to the save queue and opens the next one at once, one step deeper: typing goes
+   * on while the save travels. The step is the distance between the last two rows committed.
+   */
+  function commitNew(input: StructureInput) {
+    const before = lastCommitted.value
+    if (before && input.depth > before.depth) setStep(input.depth - before.depth)
+    const typed = { ...draft.value }
+    const key = queue.enqueue(typed, source.value, input)
+    lastCommitted.value = { key, depth: input.depth, source: source.value, draft: typed }
+    draft.value = emptyDraft(nextDepth(input.depth))
+    touched.value = {}
+  }
+
+  function onSaved(row: Structure, item: PendingRow) {
+    savedHere.value = [...savedHere.value, row.id]
+    const last = lastCommitted.value
+    if (last?.key !== item.key) return
+    last.savedId = row.id
+    // The stored depth is the authority; a depth the logger has begun to type is left alone.
+    suggest(nextDepth(row.depth))
+  }
+
+  /** The last row committed here (else the deepest saved), one step deeper: for runs of similar structures. */
   function repeatLast() {
-    const last = lastSaved.value ?? structures.rows.value.at(-1)
-    if (!last) return
-    source.value = last.source === 'true' ? 'true' : 'core'
-    draft.value = { ...draftFromStructure(last), depth: nextDepth(last.depth) }
-    state.value = idle()
+    const last = lastCommitted.value
+    const deepest = structures.rows.value.at(-1)
+    if (last) {
+      source.value = last.source
+      draft.value = { ...last.draft, depth: nextDepth(last.depth) }
+    } else if (deepest) {
+      source.value = deepest.source === 'true' ? 'true' : 'core'
+      draft.value = { ...draftFromStructure(deepest), depth: nextDepth(deepest.depth) }
+    } else return
+    // Asked for with F2: the logger's own choice, not a suggestion to replace later.
+    touched.value = { depth: true }
   }
 
   function setDraft(value: EntryDraft) {
     draft.value = value
-  }
-
-  function setEditDraft(value: EntryDraft) {
-    if (editing.value) editing.value.draft = value
   }
 
   function setAttributesOpen(value: boolean) {
@@ -123,50 +129,10 @@ export function useHoleEntry(structures: HoleStructures) {
     source.value = source.value === 'core' ? 'true' : 'core'
   }
 
+  /** Esc: the cells are emptied, the depth stays. */
   function clearNew() {
     draft.value = emptyDraft(draft.value.depth)
-    state.value = idle()
-  }
-
-  function startEdit(row: Structure) {
-    editing.value = { row, draft: draftFromStructure(row), state: idle() }
-  }
-
-  function cancelEdit() {
-    editing.value = null
-  }
-
-  async function submitEdit(input: StructureInput): Promise<boolean> {
-    const edit = editing.value
-    if (!edit) return false
-    edit.state = { ...idle(), busy: true }
-    try {
-      const fields = changedFields(edit.row, input)
-      if (Object.keys(fields).length) {
-        await structures.update(edit.row, fields)
-        void structures.load()
-      }
-      editing.value = null
-      return true
-    } catch (err: unknown) {
-      edit.state = {
-        ...idle(),
-        conflict: isApiError(err, 409),
-        errors: fieldErrors(err),
-        message: isApiError(err, 409)
-          ? 'Someone else changed this structure since you loaded it. Reload it to see their change (your edit here is dropped).'
-          : describeError(err, 'The change could not be saved.'),
-      }
-      return false
-    }
-  }
-
-  /** After a conflict: the row as stored now; editing continues from it. */
-  async function reloadEditing() {
-    const edit = editing.value
-    if (!edit) return
-    const fresh = await structures.reloadOne(edit.row.id)
-    editing.value = fresh ? { row: fresh, draft: draftFromStructure(fresh), state: idle() } : null
+    touched.value = touched.value.depth ? { depth: true } : {}
   }
 
   async function remove(row: Structure) {
@@ -174,7 +140,7 @@ export function useHoleEntry(structures: HoleStructures) {
     rowMessages.value = rest
     try {
       await structures.remove(row)
-      if (lastSaved.value?.id === row.id) lastSaved.value = null
+      if (lastCommitted.value?.savedId === row.id) lastCommitted.value = null
       void structures.load()
     } catch (err: unknown) {
       const message = isApiError(err, 409)
@@ -188,25 +154,22 @@ export function useHoleEntry(structures: HoleStructures) {
     source,
     attributesOpen,
     draft,
-    state,
+    touched,
     step,
-    lastSaved,
-    editing,
+    lastCommitted,
     rowMessages,
     savedHere,
+    queue,
+    ...edit,
     suggestStart,
     setStep,
+    touch,
     setDraft,
-    setEditDraft,
     setAttributesOpen,
     toggleSource,
-    submitNew,
+    commitNew,
     repeatLast,
     clearNew,
-    startEdit,
-    cancelEdit,
-    submitEdit,
-    reloadEditing,
     remove,
   }
 }

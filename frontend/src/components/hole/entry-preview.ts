@@ -63,21 +63,27 @@ function draftInputs(input: StructureInput): StructureInputs {
 /**
  * The draft's computed values. Beta jumps compare with the previous structure of the same type in
  * the same run, so the saved rows of that run go in too, in the server's order (depth, then id);
- * a new row sorts after saved rows at its depth, an edited row keeps its id.
+ * rows still in the save queue sort after the saved ones (the server will give them the next ids),
+ * a new row after those, and an edited row keeps its id.
  */
 export function previewStructure(
   ctx: ComputeContext,
   saved: readonly Structure[],
   input: StructureInput,
   editingId?: number,
+  queued: readonly StructureInput[] = [],
 ): StructureComputed {
   const run = ctx.runs.find((r) => input.depth >= r.fromDepth && input.depth < r.toDepth)
-  const neighbours = run
-    ? saved.filter((s) => s.id !== editingId && s.depth >= run.fromDepth && s.depth < run.toDepth)
-    : []
+  const inRun = (depth: number) => !!run && depth >= run.fromDepth && depth < run.toDepth
   const draftId = editingId ?? Number.POSITIVE_INFINITY
+  const queuedFrom = Number.MAX_SAFE_INTEGER - queued.length
   const items = [
-    ...neighbours.map((s) => ({ id: s.id, inputs: storedInputs(s) })),
+    ...saved
+      .filter((s) => s.id !== editingId && inRun(s.depth))
+      .map((s) => ({ id: s.id, inputs: storedInputs(s) })),
+    ...queued
+      .map((q, i) => ({ id: queuedFrom + i, inputs: draftInputs(q) }))
+      .filter((q) => inRun(q.inputs.depth)),
     { id: draftId, inputs: draftInputs(input) },
   ].sort((a, b) => a.inputs.depth - b.inputs.depth || a.id - b.id)
   const computed = computeStructures(
