@@ -43,8 +43,18 @@ describe('interval review: draft → checked → approved, reopen with a reason'
   })
 
   it('checked intervals lock their structures: a logger cannot add one inside, an engineer can', async () => {
+    // "upper" is approved by now and frozen for everyone: this runs in a second, checked interval.
+    const lower = await engineer.post(`${base()}/intervals`, {
+      name: 'lower',
+      fromDepth: 30,
+      toDepth: 60,
+    })
+    await fx.db
+      .update(intervals)
+      .set({ status: 'checked', checkedBy: fx.userIds.engineer })
+      .where(eq(intervals.id, lower.body.data.id))
     const refused = await logger.post(`${base()}/structures`, {
-      depth: 10,
+      depth: 40,
       type: 'joint',
       alpha: 40,
     })
@@ -53,7 +63,7 @@ describe('interval review: draft → checked → approved, reopen with a reason'
       (await fx.db.select().from(structures).where(eq(structures.holeId, fx.holeId))).length,
     ).toBe(0)
     expect(
-      (await engineer.post(`${base()}/structures`, { depth: 10, type: 'joint', alpha: 40 })).status,
+      (await engineer.post(`${base()}/structures`, { depth: 40, type: 'joint', alpha: 40 })).status,
     ).toBe(201)
   })
 

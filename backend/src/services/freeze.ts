@@ -1,6 +1,6 @@
 import { and, asc, eq, gt, inArray, lt, lte, or, sql, type SQL } from 'drizzle-orm'
 import { intervals, type Interval } from '../../../schema/index'
-import type { Db, Executor } from '../db/client'
+import type { Db, Executor, Tx } from '../db/client'
 import { ApiError } from '../http/errors'
 import { notifyProject } from '../mail/notify'
 import { audit } from './audit'
@@ -35,20 +35,25 @@ function scopeWhere(scope: FreezeScope): SQL | undefined {
   )
 }
 
-/** The hole's intervals in a status list that a write in `scope` would touch, shallowest first. */
+/**
+ * The hole's intervals in a status list that a write in `scope` would touch, shallowest first.
+ * With `lock`, every interval in scope (whatever its status) is locked until the transaction ends,
+ * so no review step can slip in between this check and the write's commit.
+ */
 export async function intervalsTouched(
   db: Executor,
   holeId: number,
   scope: FreezeScope,
   statuses: Interval['status'][],
+  lock = false,
 ): Promise<Interval[]> {
-  return db
+  const query = db
     .select()
     .from(intervals)
-    .where(
-      and(eq(intervals.holeId, holeId), inArray(intervals.status, statuses), scopeWhere(scope)),
-    )
-    .orderBy(asc(intervals.fromDepth))
+    .where(and(eq(intervals.holeId, holeId), scopeWhere(scope)))
+    .orderBy(asc(intervals.fromDepth), asc(intervals.id))
+  const rows = lock ? await query.for('update') : await query
+  return rows.filter((i) => statuses.includes(i.status))
 }
 
 export const describeInterval = (i: Pick<Interval, 'name' | 'fromDepth' | 'toDepth'>) =>
@@ -64,7 +69,7 @@ export async function assertNotFrozen(
   scope: FreezeScope,
   what = 'This change',
 ): Promise<void> {
-  const hit = await intervalsTouched(db, holeId, scope, FROZEN)
+  const hit = await intervalsTouched(db, holeId, scope, FROZEN, true)
   if (hit.length === 0) return
   const names = hit.map(describeInterval).join(', ')
   const status = hit[0].status
@@ -83,6 +88,8 @@ export async function assertNotFrozen(
 export interface Demoted {
   interval: Interval
   checkedBy: number | null
+  /** Why it went back to draft, as audited. */
+  reason: string
 }
 
 /**
@@ -98,7 +105,7 @@ export async function demoteChecked(
   scope: FreezeScope,
   reason: string,
 ): Promise<Demoted[]> {
-  const hit = await intervalsTouched(tx, holeId, scope, ['checked'])
+  const hit = await intervalsTouched(tx, holeId, scope, ['checked'], true)
   const out: Demoted[] = []
   for (const before of hit) {
     const [after] = await tx
@@ -121,7 +128,7 @@ export async function demoteChecked(
       before: { status: before.status, checkedBy: before.checkedBy, checkedAt: before.checkedAt },
       after: { status: after.status, reason },
     })
-    out.push({ interval: after, checkedBy: before.checkedBy })
+    out.push({ interval: after, checkedBy: before.checkedBy, reason })
   }
   return out
 }
@@ -132,7 +139,7 @@ export async function noticeDemoted(
   projectId: number,
   hole: { id: number; name: string },
   demoted: Demoted[],
-  reason: string,
+  reason?: string,
 ): Promise<void> {
   for (const d of demoted) {
     if (d.checkedBy === null) continue
@@ -140,8 +147,46 @@ export async function noticeDemoted(
       projectId,
       userIds: [d.checkedBy],
       subject: `Back to draft: ${hole.name} ${d.interval.name}`,
-      text: `${hole.name} ${describeInterval(d.interval)} went back to draft after a change inside it (${reason}). Check it again when ready.`,
+      text: `${hole.name} ${describeInterval(d.interval)} went back to draft after a change inside it (${reason ?? d.reason}). Check it again when ready.`,
       link: `/projects/${projectId}/holes/${hole.id}/intervals/${d.interval.id}`,
     })
   }
+}
+
+/** What a write is, for the 409 message (`what`) and for the audit row and the notice (`reason`). */
+export interface FreezeChange {
+  what: string
+  reason: string
+}
+
+/**
+ * The two freeze rules of one write in `scope`, inside its transaction: 409 when an approved or
+ * issued interval is touched, then every checked one back to draft. Returns the demoted ones.
+ */
+export async function guardWrite(
+  tx: Executor,
+  actorId: number,
+  projectId: number,
+  holeId: number,
+  scope: FreezeScope,
+  change: FreezeChange,
+): Promise<Demoted[]> {
+  await assertNotFrozen(tx, holeId, scope, change.what)
+  return demoteChecked(tx, actorId, projectId, holeId, scope, change.reason)
+}
+
+/**
+ * Runs a write in one transaction with a list to collect the intervals it demotes, then tells
+ * their checkers once it has committed (a mail failure never undoes the write).
+ */
+export async function writeAndNotice<T>(
+  db: Db,
+  projectId: number,
+  hole: { id: number; name: string },
+  work: (tx: Tx, demoted: Demoted[]) => Promise<T>,
+): Promise<T> {
+  const demoted: Demoted[] = []
+  const out = await db.transaction((tx) => work(tx, demoted))
+  await noticeDemoted(db, projectId, hole, demoted)
+  return out
 }

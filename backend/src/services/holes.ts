@@ -1,7 +1,14 @@
-import { and, asc, eq } from 'drizzle-orm'
-import { holes, type Hole, type HoleCreate, type HoleUpdate } from '../../../schema/index'
+import { and, asc, eq, max } from 'drizzle-orm'
+import {
+  coreRuns,
+  holes,
+  structures,
+  type Hole,
+  type HoleCreate,
+  type HoleUpdate,
+} from '../../../schema/index'
 import type { Db, Executor } from '../db/client'
-import { notFound, staleVersion } from '../http/errors'
+import { badRequest, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
 
 export const listHoles = (db: Executor, projectId: number) =>
@@ -35,6 +42,30 @@ export async function createHole(db: Db, actorId: number, projectId: number, inp
   })
 }
 
+/**
+ * 400 naming `body.finalDepth` when the hole would end above its deepest structure or run. Read
+ * after the hole row is locked by the update, so a structure written meanwhile is counted.
+ */
+async function assertHoldsItsData(tx: Executor, holeId: number, finalDepth: number) {
+  const [deepest] = await tx
+    .select({ depth: max(structures.depth) })
+    .from(structures)
+    .where(eq(structures.holeId, holeId))
+  const [lastRun] = await tx
+    .select({ depth: max(coreRuns.toDepth) })
+    .from(coreRuns)
+    .where(eq(coreRuns.holeId, holeId))
+  const problems = [
+    { depth: deepest.depth, what: 'its deepest structure' },
+    { depth: lastRun.depth, what: 'the end of its deepest core run' },
+  ].filter((p): p is { depth: number; what: string } => p.depth !== null && p.depth > finalDepth)
+  if (problems.length === 0) return
+  const message = problems.map((p) => `shallower than ${p.what} (${p.depth} m)`).join('; ')
+  throw badRequest(`The final depth ${finalDepth} m is ${message}.`, [
+    { path: 'body.finalDepth', message },
+  ])
+}
+
 export async function updateHole(db: Db, actorId: number, hole: Hole, input: HoleUpdate) {
   const { version, ...fields } = input
   return db.transaction(async (tx) => {
@@ -44,6 +75,7 @@ export async function updateHole(db: Db, actorId: number, hole: Hole, input: Hol
       .where(and(eq(holes.id, hole.id), eq(holes.version, version)))
       .returning()
     if (!after) throw staleVersion()
+    if (fields.finalDepth !== undefined) await assertHoldsItsData(tx, hole.id, after.finalDepth)
     await audit(tx, {
       projectId: hole.projectId,
       userId: actorId,

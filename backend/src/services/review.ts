@@ -1,6 +1,12 @@
 import { and, eq } from 'drizzle-orm'
-import { intervals, type Hole, type Interval, type ProjectRole } from '../../../schema/index'
-import type { Db } from '../db/client'
+import {
+  intervals,
+  projects,
+  type Hole,
+  type Interval,
+  type ProjectRole,
+} from '../../../schema/index'
+import type { Db, Tx } from '../db/client'
 import { roleAtLeast } from '../auth/guards'
 import { ApiError, conflict, forbidden, staleVersion } from '../http/errors'
 import { notifyProject } from '../mail/notify'
@@ -33,6 +39,25 @@ function mayTake(step: Step, role: ProjectRole, status: Interval['status']) {
 }
 
 /**
+ * Four eyes (a project setting, on by default): the lead who approves must not be the one who
+ * checked. 409 `four_eyes` otherwise.
+ */
+async function assertFourEyes(tx: Tx, actor: Actor, projectId: number, interval: Interval) {
+  if (interval.checkedBy !== actor.id) return
+  const [project] = await tx
+    .select({ fourEyes: projects.fourEyes })
+    .from(projects)
+    .where(eq(projects.id, projectId))
+  if (!project?.fourEyes) return
+  throw new ApiError(
+    409,
+    'four_eyes',
+    'Four-eyes rule: you checked this interval, so another lead must approve it.',
+    [{ path: 'interval', message: `${interval.id} was checked by the same account` }],
+  )
+}
+
+/**
  * Moves an interval along draft → checked → approved (issued comes with a design pack); reopening
  * goes back to draft with a reason. Audited in the same transaction; the team is told by e-mail
  * after the commit (a mail failure never undoes the step).
@@ -61,6 +86,7 @@ export async function reviewStep(
         step === 'approve' ? 'Only the project lead approves.' : 'Your role cannot do that here.',
       )
     }
+    if (step === 'approve') await assertFourEyes(tx, actor, hole.projectId, before)
     const stamp =
       step === 'check'
         ? { checkedBy: actor.id, checkedAt: new Date() }
@@ -82,8 +108,24 @@ export async function reviewStep(
       before: { status: before.status },
       after: { status: row.status, ...(input.reason ? { reason: input.reason } : {}) },
     })
-    return row
+    return { row, before }
   })
+  await tellTeam(db, actor, hole, step, after, input.reason)
+  return after.row
+}
+
+/**
+ * The team hears of each step after the commit; a reopening also reaches the interval's own
+ * checker and approver (by user id, whatever their role is now).
+ */
+async function tellTeam(
+  db: Db,
+  actor: Actor,
+  hole: Hole & { name: string },
+  step: Step,
+  { row: after, before }: { row: Interval; before: Interval },
+  reason?: string,
+) {
   const what = `${hole.name} ${after.name} (${after.fromDepth}–${after.toDepth} m)`
   const subject =
     step === 'approve'
@@ -93,16 +135,19 @@ export async function reviewStep(
         : `Checked: ${what}`
   const text =
     step === 'reopen'
-      ? `${actor.name} reopened ${what}: ${input.reason}`
+      ? `${actor.name} reopened ${what}: ${reason}`
       : `${actor.name} marked ${what} as ${after.status}.`
   await notifyProject(db, {
     projectId: hole.projectId,
     roles: step === 'check' ? ['lead'] : ['engineer', 'lead'],
+    userIds:
+      step === 'reopen'
+        ? [before.checkedBy, before.approvedBy].filter((id): id is number => id !== null)
+        : [],
     subject,
     text,
     link: `/projects/${hole.projectId}/holes/${hole.id}/intervals/${after.id}`,
   })
-  return after
 }
 
 /** Asks the engineers to check an interval; changes nothing but the audit trail. */

@@ -9,10 +9,22 @@ import {
   type RunInputT,
 } from '../../../schema/index'
 import { zodDetails } from '../http/validate'
-import type { Db, Executor, Tx } from '../db/client'
-import { badRequest, notFound, staleVersion, type ErrorDetail } from '../http/errors'
+import type { Db, Executor } from '../db/client'
+import { badRequest, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
-import { recomputeStructures } from './structures'
+import { writeOnce, type IdempotencyRequest } from './idempotency'
+import { writeAndNotice, type Demoted } from './freeze'
+import {
+  assertFits,
+  assertRunsWithinHole,
+  changedRunRanges,
+  checkRunSequence,
+  guardRuns,
+} from './run-rules'
+import { lockHole } from './structure-context'
+import { recomputeRanges, type DepthRange } from './structure-recompute'
+
+export { checkRunSequence } from './run-rules'
 
 /** A run with its TCR, SCR, RQD (%), fracture frequency (/m) and Deere class. */
 export function withMetrics(run: CoreRun) {
@@ -47,46 +59,44 @@ const pickRunFields = (r: CoreRun): RunInputT => ({
   comment: r.comment,
 })
 
-/** Overlaps are errors (naming both runs); gaps between runs are reported, not refused. */
-export function checkRunSequence(
-  runs: readonly { fromDepth: number; toDepth: number }[],
-  path = 'runs',
-) {
-  const order = runs.map((r, i) => ({ ...r, i })).sort((a, b) => a.fromDepth - b.fromDepth)
-  const errors: ErrorDetail[] = []
-  const gaps: { from: number; to: number }[] = []
-  for (let k = 1; k < order.length; k++) {
-    const a = order[k - 1]
-    const b = order[k]
-    if (b.fromDepth < a.toDepth - 1e-9) {
-      errors.push({
-        path: `${path}.${b.i}.fromDepth`,
-        message: `run ${b.fromDepth}–${b.toDepth} m overlaps run ${a.fromDepth}–${a.toDepth} m`,
-      })
-    } else if (b.fromDepth > a.toDepth + 1e-9) gaps.push({ from: a.toDepth, to: b.fromDepth })
-  }
-  return { errors, gaps }
-}
+const span = (r: { fromDepth: number; toDepth: number }) => `${r.fromDepth}–${r.toDepth} m`
+const extent = (r: { fromDepth: number; toDepth: number }): DepthRange => ({
+  from: r.fromDepth,
+  to: r.toDepth,
+})
 
-async function afterRunsChange(tx: Executor, project: Project, hole: Hole) {
-  // Mark confidence and run limits change structure flags: recompute the hole.
-  await recomputeStructures(tx, project, hole)
-}
-
-/** Replaces the hole's runs inside an open transaction (used by the API and by imports). */
+/**
+ * Replaces the hole's runs inside an open transaction (used by the API and by imports). Intervals
+ * a checked interval demoted are pushed to `demoted`, for the caller to tell after its commit.
+ */
 export async function replaceRunsIn(
   tx: Executor,
   actorId: number,
   project: Project,
   hole: Hole,
   runs: RunInputT[],
+  demoted: Demoted[] = [],
 ) {
   const { errors, gaps } = checkRunSequence(runs, 'body.runs')
   if (errors.length) throw badRequest('Runs overlap.', errors, 'runs_overlap')
+  const current = await lockHole(tx, hole.id)
+  assertRunsWithinHole(
+    current,
+    runs.map((r, i) => ({ toDepth: r.toDepth, path: `body.runs.${i}.toDepth` })),
+  )
   const before = await tx.select().from(coreRuns).where(eq(coreRuns.holeId, hole.id))
+  const changed = changedRunRanges(before, runs)
+  await guardRuns(
+    tx,
+    actorId,
+    current,
+    changed,
+    { what: "Replacing the hole's core runs", reason: "the hole's core runs were replaced" },
+    demoted,
+  )
   await tx.delete(coreRuns).where(eq(coreRuns.holeId, hole.id))
   if (runs.length) await tx.insert(coreRuns).values(runs.map((r) => ({ ...r, holeId: hole.id })))
-  await afterRunsChange(tx, project, hole)
+  await recomputeRanges(tx, project, current, changed)
   const after = await listRuns(tx, hole.id)
   await audit(tx, {
     projectId: project.id,
@@ -106,27 +116,10 @@ export const replaceRuns = (
   project: Project,
   hole: Hole,
   runs: RunInputT[],
-) => db.transaction((tx) => replaceRunsIn(tx, actorId, project, hole, runs))
-
-async function assertFits(
-  tx: Tx,
-  holeId: number,
-  run: { fromDepth: number; toDepth: number },
-  exceptId?: number,
-) {
-  const others = await tx.select().from(coreRuns).where(eq(coreRuns.holeId, holeId))
-  const clash = others.find(
-    (o) =>
-      o.id !== exceptId && run.fromDepth < o.toDepth - 1e-9 && run.toDepth > o.fromDepth + 1e-9,
+) =>
+  writeAndNotice(db, project.id, hole, (tx, demoted) =>
+    replaceRunsIn(tx, actorId, project, hole, runs, demoted),
   )
-  if (clash) {
-    throw badRequest(
-      'The run overlaps another.',
-      [{ path: 'body.fromDepth', message: `overlaps run ${clash.fromDepth}–${clash.toDepth} m` }],
-      'runs_overlap',
-    )
-  }
-}
 
 export async function addRun(
   db: Db,
@@ -135,23 +128,44 @@ export async function addRun(
   hole: Hole,
   input: RunInputT,
 ) {
-  return db.transaction(async (tx) => {
-    await assertFits(tx, hole.id, input)
-    const [row] = await tx
-      .insert(coreRuns)
-      .values({ ...input, holeId: hole.id })
-      .returning()
-    await afterRunsChange(tx, project, hole)
-    await audit(tx, {
-      projectId: project.id,
-      userId: actorId,
-      entity: 'core_run',
-      entityId: row.id,
-      action: 'create',
-      after: row,
-    })
-    return withMetrics(row)
-  })
+  return (await addRunOnce(db, actorId, project, hole, input)).body.data
+}
+
+/** Adds one run, at most once per idempotency key (as `createStructureOnce`). */
+export async function addRunOnce(
+  db: Db,
+  actorId: number,
+  project: Project,
+  hole: Hole,
+  input: RunInputT,
+  idempotency?: IdempotencyRequest,
+) {
+  return writeAndNotice(db, project.id, hole, (tx, demoted) =>
+    writeOnce(tx, idempotency, 201, async () => {
+      const current = await lockHole(tx, hole.id)
+      assertRunsWithinHole(current, [{ toDepth: input.toDepth, path: 'body.toDepth' }])
+      const change = {
+        what: `A core run ${span(input)}`,
+        reason: `core run ${span(input)} was added`,
+      }
+      await assertFits(tx, hole.id, input)
+      await guardRuns(tx, actorId, current, [extent(input)], change, demoted)
+      const [row] = await tx
+        .insert(coreRuns)
+        .values({ ...input, holeId: hole.id })
+        .returning()
+      await recomputeRanges(tx, project, current, [extent(row)])
+      await audit(tx, {
+        projectId: project.id,
+        userId: actorId,
+        entity: 'core_run',
+        entityId: row.id,
+        action: 'create',
+        after: row,
+      })
+      return withMetrics(row)
+    }),
+  )
 }
 
 export async function updateRun(
@@ -163,7 +177,7 @@ export async function updateRun(
   input: Partial<RunInputT> & { version: number },
 ) {
   const { version, ...fields } = input
-  return db.transaction(async (tx) => {
+  return writeAndNotice(db, project.id, hole, async (tx, demoted) => {
     const [before] = await tx
       .select()
       .from(coreRuns)
@@ -171,14 +185,22 @@ export async function updateRun(
     if (!before) throw notFound('Core run')
     const merged = RunInput.safeParse({ ...pickRunFields(before), ...fields })
     if (!merged.success) throw badRequest('Invalid run.', zodDetails('body', merged.error))
+    const current = await lockHole(tx, hole.id)
+    assertRunsWithinHole(current, [{ toDepth: merged.data.toDepth, path: 'body.toDepth' }])
+    const ranges = [extent(before), extent(merged.data)]
+    const change = {
+      what: `Editing core run ${span(before)}`,
+      reason: `core run ${span(before)} was edited`,
+    }
     await assertFits(tx, hole.id, merged.data, id)
+    await guardRuns(tx, actorId, current, ranges, change, demoted)
     const [after] = await tx
       .update(coreRuns)
       .set({ ...fields, version: version + 1 })
       .where(and(eq(coreRuns.id, id), eq(coreRuns.version, version)))
       .returning()
     if (!after) throw staleVersion()
-    await afterRunsChange(tx, project, hole)
+    await recomputeRanges(tx, project, current, ranges)
     await audit(tx, {
       projectId: project.id,
       userId: actorId,
@@ -193,13 +215,19 @@ export async function updateRun(
 }
 
 export async function deleteRun(db: Db, actorId: number, project: Project, hole: Hole, id: number) {
-  await db.transaction(async (tx) => {
+  await writeAndNotice(db, project.id, hole, async (tx, demoted) => {
+    const current = await lockHole(tx, hole.id)
     const [before] = await tx
       .delete(coreRuns)
       .where(and(eq(coreRuns.id, id), eq(coreRuns.holeId, hole.id)))
       .returning()
     if (!before) throw notFound('Core run')
-    await afterRunsChange(tx, project, hole)
+    const change = {
+      what: `Deleting core run ${span(before)}`,
+      reason: `core run ${span(before)} was deleted`,
+    }
+    await guardRuns(tx, actorId, current, [extent(before)], change, demoted)
+    await recomputeRanges(tx, project, current, [extent(before)])
     await audit(tx, {
       projectId: project.id,
       userId: actorId,

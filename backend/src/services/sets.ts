@@ -1,5 +1,4 @@
 import { and, eq, inArray } from 'drizzle-orm'
-import { angleBetweenLines, clusterSets, suggestK, type Line } from '../../../orient/index'
 import {
   setMembers,
   structures,
@@ -7,14 +6,27 @@ import {
   type Hole,
   type Interval,
 } from '../../../schema/index'
-import type { Db, Executor } from '../db/client'
-import { badRequest, conflict, notFound, staleVersion } from '../http/errors'
+import type { Db, Executor, Tx } from '../db/client'
+import { badRequest, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
-import { loadIntervalData } from './interval-data'
+import { guardWrite, writeAndNotice, type Demoted, type FreezeChange } from './freeze'
 
-const editable = (interval: Interval) => {
-  if (interval.status === 'issued')
-    throw conflict('An issued interval cannot change.', 'interval_issued')
+export { clusterInterval, replaceWithClusters, suggestSetCount } from './set-clusters'
+
+/**
+ * A set edit changes its interval's analysis: 409 once the interval is approved or issued (every
+ * role), and a checked one goes back to draft.
+ */
+async function guardSets(
+  tx: Tx,
+  actorId: number,
+  hole: Hole,
+  interval: Interval,
+  change: FreezeChange,
+  demoted: Demoted[],
+) {
+  const scope = { intervalIds: [interval.id] }
+  demoted.push(...(await guardWrite(tx, actorId, hole.projectId, hole.id, scope, change)))
 }
 
 export async function getSet(db: Executor, intervalId: number, setId: number) {
@@ -36,8 +48,9 @@ export async function createConeSet(
   interval: Interval,
   input: SetFields,
 ) {
-  editable(interval)
-  return db.transaction(async (tx) => {
+  return writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
+    const change = { what: `Adding set "${input.name}"`, reason: `set "${input.name}" was added` }
+    await guardSets(tx, actorId, hole, interval, change, demoted)
     const [row] = await tx
       .insert(structureSets)
       .values({ ...input, intervalId: interval.id, rule: 'cone' })
@@ -54,93 +67,6 @@ export async function createConeSet(
   })
 }
 
-const oriented = async (db: Executor, interval: Interval) =>
-  (await loadIntervalData(db, interval)).structures.filter(
-    (s) => s.poleTrend !== null && s.dip !== null,
-  )
-
-/**
- * Replaces the interval's sets with k clusters of its oriented poles (axial spherical k-means,
- * seeded so a rerun gives the same sets), each stored with its explicit members and a cone
- * reaching its farthest member. Runs inside the caller's transaction.
- */
-export async function replaceWithClusters(tx: Executor, interval: Interval, k: number) {
-  const rows = await oriented(tx, interval)
-  const poles: Line[] = rows.map((r) => ({ trend: r.poleTrend!, plunge: r.polePlunge! }))
-  if (poles.length < k) {
-    throw badRequest(`Only ${poles.length} oriented structures: too few for ${k} sets.`, [
-      { path: 'body.k', message: 'more sets than structures' },
-    ])
-  }
-  const result = clusterSets(poles, { k, seed: 7 })
-  if (!result)
-    throw badRequest('Clustering found no sets in these data.', [
-      { path: 'body.k', message: 'no result' },
-    ])
-  await tx.delete(structureSets).where(eq(structureSets.intervalId, interval.id))
-  const created = []
-  for (const [i, set] of result.sets.entries()) {
-    const memberIdx = result.assignments.map((a, j) => (a === i ? j : -1)).filter((j) => j >= 0)
-    const reach = Math.max(5, ...memberIdx.map((j) => angleBetweenLines(set.mean, poles[j]) ?? 0))
-    const [row] = await tx
-      .insert(structureSets)
-      .values({
-        intervalId: interval.id,
-        name: `Set ${i + 1}`,
-        rule: 'cluster',
-        centreTrend: set.mean.trend,
-        centrePlunge: set.mean.plunge,
-        coneAngle: Math.min(90, Math.ceil(reach)),
-      })
-      .returning()
-    if (memberIdx.length) {
-      await tx
-        .insert(setMembers)
-        .values(memberIdx.map((j) => ({ setId: row.id, structureId: rows[j].id })))
-    }
-    created.push(row)
-  }
-  return created
-}
-
-/** The engineer's "cluster into k sets", audited with the sets it replaced. */
-export async function clusterInterval(
-  db: Db,
-  actorId: number,
-  hole: Hole,
-  interval: Interval,
-  k: number,
-) {
-  editable(interval)
-  return db.transaction(async (tx) => {
-    const before = await tx
-      .select()
-      .from(structureSets)
-      .where(eq(structureSets.intervalId, interval.id))
-    const created = await replaceWithClusters(tx, interval, k)
-    await audit(tx, {
-      projectId: hole.projectId,
-      userId: actorId,
-      entity: 'sets',
-      entityId: interval.id,
-      action: 'replace',
-      before,
-      after: { k, sets: created },
-    })
-    return created
-  })
-}
-
-export async function suggestSetCount(db: Executor, interval: Interval, maxK: number) {
-  const rows = await oriented(db, interval)
-  return (
-    suggestK(
-      rows.map((r) => ({ trend: r.poleTrend!, plunge: r.polePlunge! })),
-      maxK,
-    ) ?? { k: 1, scores: [] }
-  )
-}
-
 export async function updateSet(
   db: Db,
   actorId: number,
@@ -149,10 +75,14 @@ export async function updateSet(
   setId: number,
   input: Partial<SetFields> & { version: number },
 ) {
-  editable(interval)
   const { version, ...fields } = input
-  return db.transaction(async (tx) => {
+  return writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
     const before = await getSet(tx, interval.id, setId)
+    const change = {
+      what: `Editing set "${before.name}"`,
+      reason: `set "${before.name}" was edited`,
+    }
+    await guardSets(tx, actorId, hole, interval, change, demoted)
     const [after] = await tx
       .update(structureSets)
       .set({ ...fields, version: version + 1 })
@@ -179,9 +109,13 @@ export async function deleteSet(
   interval: Interval,
   setId: number,
 ) {
-  editable(interval)
-  await db.transaction(async (tx) => {
+  await writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
     const before = await getSet(tx, interval.id, setId)
+    const change = {
+      what: `Deleting set "${before.name}"`,
+      reason: `set "${before.name}" was deleted`,
+    }
+    await guardSets(tx, actorId, hole, interval, change, demoted)
     await tx.delete(structureSets).where(eq(structureSets.id, setId))
     await audit(tx, {
       projectId: hole.projectId,
@@ -206,9 +140,13 @@ export async function setMembersOf(
   setId: number,
   ids: number[],
 ) {
-  editable(interval)
-  return db.transaction(async (tx) => {
+  return writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
     const set = await getSet(tx, interval.id, setId)
+    const change = {
+      what: `Changing the members of set "${set.name}"`,
+      reason: `the members of set "${set.name}" changed`,
+    }
+    await guardSets(tx, actorId, hole, interval, change, demoted)
     const unique = [...new Set(ids)]
     if (unique.length) {
       const found = await tx

@@ -1,6 +1,14 @@
 import { and, asc, eq, gt, lte, sql } from 'drizzle-orm'
-import { coreRuns, intervals, surveyStations, type Hole, type Project } from '../../../schema/index'
+import {
+  coreRuns,
+  holes,
+  intervals,
+  surveyStations,
+  type Hole,
+  type Project,
+} from '../../../schema/index'
 import type { Executor } from '../db/client'
+import { badRequest, notFound } from '../http/errors'
 import type { ComputeContext } from '../../../orient/index'
 
 /**
@@ -75,4 +83,28 @@ export async function lockedAt(db: Executor, holeId: number, depth: number): Pro
     )
     .limit(1)
   return row !== undefined
+}
+
+/**
+ * The hole as it is now, share-locked until the transaction ends: a concurrent change of its final
+ * depth or survey waits for this write, and this write sees the committed values.
+ */
+export async function lockHole(tx: Executor, holeId: number): Promise<Hole> {
+  const [row] = await tx.select().from(holes).where(eq(holes.id, holeId)).for('share')
+  if (!row) throw notFound('Hole')
+  return row
+}
+
+/** 400 naming each depth that lies beyond the hole's final depth (extend the hole first). */
+export function assertWithinHole(
+  hole: Pick<Hole, 'finalDepth'>,
+  depths: readonly { path: string; depth: number }[],
+): void {
+  const beyond = depths.filter((d) => d.depth > hole.finalDepth)
+  if (beyond.length === 0) return
+  const message = `beyond the hole's final depth (${hole.finalDepth} m)`
+  throw badRequest(
+    `${beyond[0].depth} m is ${message}: extend the hole's final depth first.`,
+    beyond.slice(0, 50).map((d) => ({ path: d.path, message })),
+  )
 }

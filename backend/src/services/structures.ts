@@ -1,4 +1,4 @@
-import { and, asc, eq, gte, lt, sql } from 'drizzle-orm'
+import { and, asc, eq } from 'drizzle-orm'
 import {
   structures,
   type Hole,
@@ -12,8 +12,14 @@ import type { Db, Executor, Tx } from '../db/client'
 import { forbidden, notFound, staleVersion } from '../http/errors'
 import { roleAtLeast } from '../auth/guards'
 import { audit } from './audit'
-import { computeStructures, storedInputs, type ComputeContext } from '../../../orient/index'
-import { affectedRange, loadComputeContext, lockedAt } from './structure-context'
+import { writeOnce, type Answer, type IdempotencyRequest } from './idempotency'
+import { assertNotFrozen, demoteChecked, writeAndNotice, type Demoted } from './freeze'
+import { assertWithinHole, lockHole, lockedAt } from './structure-context'
+import { recomputeStructures } from './structure-recompute'
+
+export { recomputeStructures } from './structure-recompute'
+
+type Actor = { id: number; role: ProjectRole }
 
 export const listStructures = (db: Executor, holeId: number) =>
   db
@@ -32,71 +38,6 @@ export function inputColumns(input: Partial<StructureInputT>) {
   }
 }
 
-/**
- * Recomputes the hole's structures — all of them, or only those a write at the `near` depths can
- * change (their runs: beta jumps compare neighbours) — with the survey and runs read once. Returns
- * how many rows were written.
- */
-export async function recomputeStructures(
-  tx: Executor,
-  project: Project,
-  hole: Hole,
-  near?: number[],
-): Promise<number> {
-  const ctx = await loadComputeContext(tx, project, hole)
-  if (!near) return recomputeRange(tx, ctx, hole)
-  const ranges = new Map(
-    near.map((depth) => {
-      const r = affectedRange(ctx, depth)
-      return [`${r.from}/${r.to}`, r]
-    }),
-  )
-  let written = 0
-  for (const range of ranges.values()) written += await recomputeRange(tx, ctx, hole, range)
-  return written
-}
-
-/** Recomputes the structures in [from, to) (all without a range) and writes them in one statement. */
-async function recomputeRange(
-  tx: Executor,
-  ctx: ComputeContext,
-  hole: Hole,
-  range?: { from: number; to: number },
-): Promise<number> {
-  const where = range
-    ? and(
-        eq(structures.holeId, hole.id),
-        gte(structures.depth, range.from),
-        lt(structures.depth, range.to),
-      )
-    : eq(structures.holeId, hole.id)
-  const rows = await tx
-    .select()
-    .from(structures)
-    .where(where)
-    .orderBy(asc(structures.depth), asc(structures.id))
-  if (rows.length === 0) return 0
-  // Every source is recomputed from its inputs: core angles, true orientation, or the raw pick.
-  const computed = computeStructures(ctx, rows.map(storedInputs))
-  const payload = rows.map((r, i) => ({
-    id: r.id,
-    ...computed[i],
-    survey_revision: hole.surveyRevision,
-  }))
-  await tx.execute(sql`
-    update structures s set
-      dip = v."dip", dip_direction = v."dipDirection", pole_trend = v."poleTrend", pole_plunge = v."polePlunge",
-      hole_trend = v."holeTrend", hole_plunge = v."holePlunge", east = v."east", north = v."north",
-      elevation = v."elevation", terzaghi_weight = v."terzaghiWeight",
-      declination_applied = v."declinationApplied", flags = v."flags", survey_revision = v.survey_revision
-    from jsonb_to_recordset(${JSON.stringify(payload)}::jsonb) as v(
-      id int, "dip" float8, "dipDirection" float8, "poleTrend" float8, "polePlunge" float8,
-      "holeTrend" float8, "holePlunge" float8, "east" float8, "north" float8, "elevation" float8,
-      "terzaghiWeight" float8, "declinationApplied" float8, "flags" text[], survey_revision int)
-    where s.id = v.id`)
-  return rows.length
-}
-
 async function assertUnlocked(db: Executor, role: ProjectRole, holeId: number, depths: number[]) {
   if (roleAtLeast(role, 'engineer')) return
   for (const d of depths) {
@@ -108,43 +49,101 @@ async function assertUnlocked(db: Executor, role: ProjectRole, holeId: number, d
   }
 }
 
+interface StructureChange {
+  /** Old and new depths: every interval they lie in is touched. */
+  depths: number[]
+  /** The depth the write asks for, checked against the hole's final depth. */
+  sent?: number
+  what: string
+  reason: string
+}
+
+/**
+ * The rules of a structure write, in its transaction and before any row changes: 400 beyond the
+ * hole's final depth, 409 in an approved interval (every role), 403 in a checked one for a
+ * logger, and a checked interval changed by an engineer or lead goes back to draft. Returns the
+ * hole as it is now.
+ */
+async function guardStructureWrite(
+  tx: Tx,
+  actor: Actor,
+  hole: Hole,
+  { depths, sent, what, reason }: StructureChange,
+  demoted: Demoted[],
+): Promise<Hole> {
+  const current = await lockHole(tx, hole.id)
+  if (sent !== undefined) assertWithinHole(current, [{ path: 'body.depth', depth: sent }])
+  await assertNotFrozen(tx, hole.id, { depths }, what)
+  await assertUnlocked(tx, actor.role, hole.id, depths)
+  demoted.push(
+    ...(await demoteChecked(tx, actor.id, current.projectId, hole.id, { depths }, reason)),
+  )
+  return current
+}
+
 async function reread(tx: Tx, id: number): Promise<Structure> {
   const [row] = await tx.select().from(structures).where(eq(structures.id, id))
   return row
 }
 
+const at = (depth: number) => `${depth} m`
+
+/** Adds one structure; see `createStructureOnce` for retries with an Idempotency-Key. */
 export async function createStructure(
   db: Db,
-  actor: { id: number; role: ProjectRole },
+  actor: Actor,
   project: Project,
   hole: Hole,
   input: StructureInputT,
 ): Promise<Structure> {
-  return db.transaction(async (tx) => {
-    await assertUnlocked(tx, actor.role, hole.id, [input.depth])
-    const [row] = await tx
-      .insert(structures)
-      .values({
-        ...inputColumns(input),
-        depth: input.depth,
-        type: input.type,
-        holeId: hole.id,
-        createdBy: actor.id,
-        updatedBy: actor.id,
+  return (await createStructureOnce(db, actor, project, hole, input)).body.data
+}
+
+/**
+ * Adds one structure, at most once per idempotency key: a retry after a lost answer gets the
+ * first answer again and stores nothing (the key is kept in the write's own transaction).
+ */
+export async function createStructureOnce(
+  db: Db,
+  actor: Actor,
+  project: Project,
+  hole: Hole,
+  input: StructureInputT,
+  idempotency?: IdempotencyRequest,
+): Promise<Answer<Structure>> {
+  const change = {
+    depths: [input.depth],
+    sent: input.depth,
+    what: `A structure at ${at(input.depth)}`,
+    reason: `a structure was added at ${at(input.depth)}`,
+  }
+  return writeAndNotice(db, project.id, hole, (tx, demoted) =>
+    writeOnce(tx, idempotency, 201, async () => {
+      const current = await guardStructureWrite(tx, actor, hole, change, demoted)
+      const [row] = await tx
+        .insert(structures)
+        .values({
+          ...inputColumns(input),
+          depth: input.depth,
+          type: input.type,
+          holeId: hole.id,
+          createdBy: actor.id,
+          updatedBy: actor.id,
+        })
+        .returning({ id: structures.id })
+      await recomputeStructures(tx, project, current, [input.depth])
+      const after = await reread(tx, row.id)
+      await audit(tx, {
+        projectId: project.id,
+        userId: actor.id,
+        entity: 'structure',
+        entityId: row.id,
+        action: 'create',
+        after,
       })
-      .returning({ id: structures.id })
-    await recomputeStructures(tx, project, hole, [input.depth])
-    const after = await reread(tx, row.id)
-    await audit(tx, {
-      projectId: project.id,
-      userId: actor.id,
-      entity: 'structure',
-      entityId: row.id,
-      action: 'create',
-      after,
-    })
-    return after
-  })
+      return after
+    }),
+  )
 }
 
 export async function getStructure(db: Executor, holeId: number, id: number): Promise<Structure> {
@@ -158,16 +157,24 @@ export async function getStructure(db: Executor, holeId: number, id: number): Pr
 
 export async function updateStructure(
   db: Db,
-  actor: { id: number; role: ProjectRole },
+  actor: Actor,
   project: Project,
   hole: Hole,
   id: number,
   input: StructureUpdate,
 ): Promise<Structure> {
   const { version, ...fields } = input
-  return db.transaction(async (tx) => {
+  return writeAndNotice(db, project.id, hole, async (tx, demoted) => {
     const before = await getStructure(tx, hole.id, id)
-    await assertUnlocked(tx, actor.role, hole.id, [before.depth, fields.depth ?? before.depth])
+    const depths = [before.depth, fields.depth ?? before.depth]
+    const moved = depths[1] !== depths[0] ? ` (moved to ${at(depths[1])})` : ''
+    const change = {
+      depths,
+      sent: fields.depth,
+      what: `Editing the structure at ${at(before.depth)}${moved}`,
+      reason: `the structure at ${at(before.depth)} was edited${moved}`,
+    }
+    const current = await guardStructureWrite(tx, actor, hole, change, demoted)
     const [updated] = await tx
       .update(structures)
       .set({
@@ -179,7 +186,7 @@ export async function updateStructure(
       .where(and(eq(structures.id, id), eq(structures.version, version)))
       .returning({ id: structures.id })
     if (!updated) throw staleVersion()
-    await recomputeStructures(tx, project, hole, [before.depth, fields.depth ?? before.depth])
+    await recomputeStructures(tx, project, current, depths)
     const after = await reread(tx, id)
     await audit(tx, {
       projectId: project.id,
@@ -196,21 +203,26 @@ export async function updateStructure(
 
 export async function deleteStructure(
   db: Db,
-  actor: { id: number; role: ProjectRole },
+  actor: Actor,
   project: Project,
   hole: Hole,
   id: number,
   version: number,
 ): Promise<void> {
-  await db.transaction(async (tx) => {
+  await writeAndNotice(db, project.id, hole, async (tx, demoted) => {
     const before = await getStructure(tx, hole.id, id)
-    await assertUnlocked(tx, actor.role, hole.id, [before.depth])
+    const change = {
+      depths: [before.depth],
+      what: `Deleting the structure at ${at(before.depth)}`,
+      reason: `the structure at ${at(before.depth)} was deleted`,
+    }
+    const current = await guardStructureWrite(tx, actor, hole, change, demoted)
     const [gone] = await tx
       .delete(structures)
       .where(and(eq(structures.id, id), eq(structures.version, version)))
       .returning({ id: structures.id })
     if (!gone) throw staleVersion()
-    await recomputeStructures(tx, project, hole, [before.depth])
+    await recomputeStructures(tx, project, current, [before.depth])
     await audit(tx, {
       projectId: project.id,
       userId: actor.id,
