@@ -3,9 +3,10 @@ import { IdParam, RunInput, RunUpdateBody, RunsReplaceBody } from '../../../sche
 import type { Db } from '../db/client'
 import { projectLocals, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
+import { idempotencyOf } from '../http/idempotency-key'
 import { holeOf } from './holes'
 import {
-  addRun,
+  addRunOnce,
   checkRunSequence,
   deleteRun,
   listRuns,
@@ -38,9 +39,10 @@ export function runsRouter(db: Db): Router {
   router.post('/', requireRole('logger'), validate({ body: RunInput }), async (req, res) => {
     const hole = await holeOf(db, req, res)
     const { body } = inputOf(res, { body: RunInput })
-    res
-      .status(201)
-      .json({ data: await addRun(db, req.user!.id, projectLocals(res).project, hole, body) })
+    const key = idempotencyOf(req, body)
+    const answer = await addRunOnce(db, req.user!.id, projectLocals(res).project, hole, body, key)
+    if (answer.replayed) res.set('Idempotent-Replayed', 'true')
+    res.status(answer.status).json(answer.body)
   })
   router.patch(
     '/:runId',

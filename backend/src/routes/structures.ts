@@ -4,9 +4,10 @@ import { IdParam, StructureInput, StructureUpdateBody } from '../../../schema/in
 import type { Db } from '../db/client'
 import { projectLocals, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
+import { idempotencyOf } from '../http/idempotency-key'
 import { holeOf } from './holes'
 import {
-  createStructure,
+  createStructureOnce,
   deleteStructure,
   getStructure,
   listStructures,
@@ -32,8 +33,17 @@ export function structuresRouter(db: Db): Router {
   router.post('/', requireRole('logger'), validate({ body: StructureInput }), async (req, res) => {
     const hole = await holeOf(db, req, res)
     const { body } = inputOf(res, { body: StructureInput })
-    const row = await createStructure(db, actorOf(req, res), projectLocals(res).project, hole, body)
-    res.status(201).json({ data: row })
+    const key = idempotencyOf(req, body)
+    const answer = await createStructureOnce(
+      db,
+      actorOf(req, res),
+      projectLocals(res).project,
+      hole,
+      body,
+      key,
+    )
+    if (answer.replayed) res.set('Idempotent-Replayed', 'true')
+    res.status(answer.status).json(answer.body)
   })
   router.get('/:structureId', validate({ params: StructureParams }), async (req, res) => {
     const hole = await holeOf(db, req, res)
