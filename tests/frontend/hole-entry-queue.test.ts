@@ -10,6 +10,7 @@ import { hole, project, run, station, stored } from './hole-entry-fixtures'
 type Reply = { status: number; body?: unknown } | 'network'
 interface Held {
   body: StructureInput
+  key: string | undefined
   answer: (reply: Reply) => void
 }
 
@@ -35,7 +36,8 @@ async function mountHeld(list: Structure[] = []) {
         return reply(200, { data: [...list], meta: {} })
       }
       const body = JSON.parse(String(init.body)) as StructureInput
-      const r = await new Promise<Reply>((answer) => held.push({ body, answer }))
+      const key = (init.headers as Record<string, string> | undefined)?.['Idempotency-Key']
+      const r = await new Promise<Reply>((answer) => held.push({ body, key, answer }))
       if (r === 'network') throw new TypeError('Failed to fetch')
       if (r.status === 201) list.push((r.body as { data: Structure }).data)
       return reply(r.status, r.body)
@@ -60,6 +62,7 @@ async function mountHeld(list: Structure[] = []) {
     gets,
     posted: () => held.map((h) => h.body.depth),
     bodies: () => held.map((h) => h.body),
+    keys: () => held.map((h) => h.key),
     /** Answers the i-th POST: 201 with the row as the server stores it, or the reply given. */
     async answer(i: number, r?: Reply) {
       const { body, answer } = held[i]!
@@ -219,6 +222,21 @@ describe('HoleEntryPanel: a save the server refuses', () => {
     await wrapper!.get('[data-testid="entry-discard"]').trigger('click')
     expect(wrapper!.find('[data-testid="entry-failed-1"]').exists()).toBe(false)
     expect(server.posted()).toEqual([12.3])
+  })
+
+  it('POST carries one Idempotency-Key per row; a retry of the same cells sends the same key', async () => {
+    const server = await mountHeld()
+    await commit({ depth: '12.3', type: 'jt', alpha: '60' })
+    await commit({ depth: '12.6', type: 'bd', alpha: '20' })
+    await server.answer(0, 'network')
+    await server.answer(1)
+    await wrapper!.get('[data-testid="entry-retry"]').trigger('click')
+    await flushPromises()
+    const [first, second, retried] = server.keys()
+    expect(first).toMatch(/^[\x21-\x7e]{8,200}$/)
+    expect(second).not.toBe(first)
+    expect(retried).toBe(first)
+    expect(server.posted()).toEqual([12.3, 12.6, 12.3])
   })
 })
 

@@ -37,6 +37,8 @@ export interface RequestOptions {
   signal?: AbortSignal
   /** The caller expects 401 as an answer (session probe, sign-in): do not report it. */
   expect401?: boolean
+  /** Sent as `Idempotency-Key`: a retry with the same key can never store the row twice. */
+  idempotencyKey?: string
 }
 
 let csrfToken: string | null = null
@@ -101,6 +103,7 @@ async function send<T>(
   const multipart = body instanceof FormData
   if (body !== undefined && !multipart) headers['Content-Type'] = 'application/json'
   if (method !== 'GET') headers['X-CSRF-Token'] = csrfToken ?? (await fetchCsrfToken())
+  if (options.idempotencyKey) headers['Idempotency-Key'] = options.idempotencyKey
 
   let response: Response
   try {

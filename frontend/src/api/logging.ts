@@ -33,8 +33,12 @@ export const listStructures = (projectId: IdParam, holeId: IdParam) =>
 export const getStructure = (projectId: IdParam, holeId: IdParam, structureId: IdParam) =>
   api.get<Structure>(`${structuresPath(projectId, holeId)}/${seg(structureId)}`)
 
-export const createStructure = (projectId: IdParam, holeId: IdParam, body: StructureInput) =>
-  api.post<Structure>(structuresPath(projectId, holeId), body)
+export const createStructure = (
+  projectId: IdParam,
+  holeId: IdParam,
+  body: StructureInput,
+  idempotencyKey?: string,
+) => api.post<Structure>(structuresPath(projectId, holeId), body, { idempotencyKey })
 
 export const updateStructure = (
   projectId: IdParam,

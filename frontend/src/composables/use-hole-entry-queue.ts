@@ -39,12 +39,18 @@ export function fieldErrors(err: unknown): EntryErrors {
   return out
 }
 
+const newKey = () =>
+  globalThis.crypto?.randomUUID?.() ??
+  `${Date.now().toString(36)}-${Math.random().toString(36).slice(2)}-${Math.random().toString(36).slice(2)}`
+
 /** A row committed with Enter that is not stored yet: its cells exactly as typed. */
 export interface PendingRow {
   key: number
   source: EntrySource
   draft: EntryDraft
   input: StructureInput
+  /** One key per row as sent: a retry of the same cells can never store the row twice. */
+  idempotencyKey: string
   status: 'queued' | 'saving' | 'failed'
   state: RowState
 }
@@ -55,7 +61,7 @@ export interface PendingRow {
  * fails stays, with the server's message, until it is retried or discarded by hand.
  */
 export function useHoleEntryQueue(
-  create: (input: StructureInput) => Promise<Structure>,
+  create: (input: StructureInput, idempotencyKey: string) => Promise<Structure>,
   onSaved: (row: Structure, item: PendingRow) => void,
   /** Called once the queue has run dry, with how many rows it stored on the way. */
   onDrained: (saved: number) => void,
@@ -71,7 +77,15 @@ export function useHoleEntryQueue(
 
   function enqueue(draft: EntryDraft, source: EntrySource, input: StructureInput): number {
     const key = ++lastKey
-    pending.value.push({ key, source, draft, input, status: 'queued', state: idleState() })
+    pending.value.push({
+      key,
+      source,
+      draft,
+      input,
+      idempotencyKey: newKey(),
+      status: 'queued',
+      state: idleState(),
+    })
     void drain()
     return key
   }
@@ -85,7 +99,7 @@ export function useHoleEntryQueue(
         item.status = 'saving'
         item.state = { ...idleState(), busy: true }
         try {
-          const row = await create(item.input)
+          const row = await create(item.input, item.idempotencyKey)
           const key = item.key
           pending.value = pending.value.filter((p) => p.key !== key)
           saved++
@@ -114,6 +128,9 @@ export function useHoleEntryQueue(
   function retry(key: number, input: StructureInput) {
     const item = find(key)
     if (item?.status !== 'failed') return
+    // The same cells keep their key (the first try may have been stored after all); new cells
+    // are a new request.
+    if (JSON.stringify(input) !== JSON.stringify(item.input)) item.idempotencyKey = newKey()
     item.input = input
     item.status = 'queued'
     item.state = idleState()

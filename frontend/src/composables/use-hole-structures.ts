@@ -52,8 +52,8 @@ export function useHoleStructures(projectId: () => string, holeId: () => string)
     }
   }
 
-  async function create(input: StructureInput): Promise<Structure> {
-    const row = await createStructure(projectId(), holeId(), input)
+  async function create(input: StructureInput, idempotencyKey?: string): Promise<Structure> {
+    const row = await createStructure(projectId(), holeId(), input, idempotencyKey)
     put(row)
     return row
   }
