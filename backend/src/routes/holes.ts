@@ -8,7 +8,7 @@ import {
   SurveyReplaceBody,
 } from '../../../schema/index'
 import type { Db } from '../db/client'
-import { projectLocals, requireRole } from '../auth/guards'
+import { projectLocals, requireAdmin, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
 import { notFound } from '../http/errors'
 import { logsRouter } from './logs'
@@ -16,7 +16,8 @@ import { runsRouter } from './runs'
 import { importsRouter, type ImportDeps } from './imports'
 import { intervalsRouter } from './intervals'
 import { structuresRouter } from './structures'
-import { createHole, deleteHole, getHole, listHoles, updateHole } from '../services/holes'
+import { createHole, getHole, listHoles, updateHole } from '../services/holes'
+import { deleteHole, listDeletedHoles, purgeHole, restoreHole } from '../services/hole-bin'
 import {
   addStation,
   deleteStation,
@@ -54,6 +55,30 @@ export function holesRouter(deps: ImportDeps): Router {
       .status(201)
       .json({ data: await createHole(db, req.user!.id, projectLocals(res).project.id, body) })
   })
+  // Deleted holes (the bin): leads see and restore them for 30 days, administrators purge them.
+  router.get('/deleted', requireRole('lead'), async (_req, res) => {
+    res.json({ data: await listDeletedHoles(db, projectLocals(res).project.id) })
+  })
+  router.post(
+    '/:holeId/restore',
+    requireRole('lead'),
+    validate({ params: HoleParams }),
+    async (req, res) => {
+      const { params } = inputOf(res, { params: HoleParams })
+      const projectId = projectLocals(res).project.id
+      res.json({ data: await restoreHole(db, req.user!.id, projectId, params.holeId) })
+    },
+  )
+  router.delete(
+    '/:holeId/purge',
+    requireAdmin,
+    validate({ params: HoleParams }),
+    async (req, res) => {
+      const { params } = inputOf(res, { params: HoleParams })
+      await purgeHole(db, req.user!.id, projectLocals(res).project.id, params.holeId)
+      res.status(204).end()
+    },
+  )
   router.get('/:holeId', async (req, res) => {
     res.json({ data: await holeOf(db, req, res) })
   })

@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, sql } from 'drizzle-orm'
+import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm'
 import { comments, intervals, holes, memberships, structures, users } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { notFound } from '../http/errors'
@@ -7,14 +7,14 @@ import { audit } from './audit'
 
 type Entity = 'structure' | 'interval'
 
-/** The commented thing must belong to the project (404 otherwise, never a leak). */
+/** The commented thing must belong to the project and a hole not deleted (404 otherwise). */
 async function assertInProject(db: Db, projectId: number, entity: Entity, entityId: number) {
   const table = entity === 'structure' ? structures : intervals
   const [row] = await db
     .select({ id: table.id })
     .from(table)
     .innerJoin(holes, eq(holes.id, table.holeId))
-    .where(and(eq(table.id, entityId), eq(holes.projectId, projectId)))
+    .where(and(eq(table.id, entityId), eq(holes.projectId, projectId), isNull(holes.deletedAt)))
   if (!row) throw notFound(entity === 'structure' ? 'Structure' : 'Interval')
 }
 

@@ -1,4 +1,4 @@
-import { and, asc, eq, max } from 'drizzle-orm'
+import { and, asc, eq, isNull, max } from 'drizzle-orm'
 import {
   coreRuns,
   holes,
@@ -8,24 +8,33 @@ import {
   type HoleUpdate,
 } from '../../../schema/index'
 import type { Db, Executor } from '../db/client'
-import { badRequest, notFound, staleVersion } from '../http/errors'
+import { badRequest, conflict, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
 
+/** The project's holes; deleted ones (in the bin, see hole-bin.ts) are not among them. */
 export const listHoles = (db: Executor, projectId: number) =>
-  db.select().from(holes).where(eq(holes.projectId, projectId)).orderBy(asc(holes.name))
+  db
+    .select()
+    .from(holes)
+    .where(and(eq(holes.projectId, projectId), isNull(holes.deletedAt)))
+    .orderBy(asc(holes.name))
 
-/** A hole of this project, or 404 (a hole id from another project is simply not found). */
+/**
+ * A hole of this project, or 404 (a hole id from another project, or a deleted hole, is simply
+ * not found: every route below a hole goes through here).
+ */
 export async function getHole(db: Executor, projectId: number, holeId: number): Promise<Hole> {
   const [hole] = await db
     .select()
     .from(holes)
-    .where(and(eq(holes.projectId, projectId), eq(holes.id, holeId)))
+    .where(and(eq(holes.projectId, projectId), eq(holes.id, holeId), isNull(holes.deletedAt)))
   if (!hole) throw notFound('Hole')
   return hole
 }
 
 export async function createHole(db: Db, actorId: number, projectId: number, input: HoleCreate) {
   return db.transaction(async (tx) => {
+    await assertNameFree(tx, projectId, input.name)
     const [hole] = await tx
       .insert(holes)
       .values({ ...input, projectId })
@@ -89,16 +98,15 @@ export async function updateHole(db: Db, actorId: number, hole: Hole, input: Hol
   })
 }
 
-export async function deleteHole(db: Db, actorId: number, hole: Hole) {
-  await db.transaction(async (tx) => {
-    await tx.delete(holes).where(eq(holes.id, hole.id))
-    await audit(tx, {
-      projectId: hole.projectId,
-      userId: actorId,
-      entity: 'hole',
-      entityId: hole.id,
-      action: 'delete',
-      before: hole,
-    })
-  })
+/** A deleted hole still holds its name until purged: say so rather than a bare duplicate. */
+async function assertNameFree(tx: Executor, projectId: number, name: string) {
+  const [binned] = await tx
+    .select({ deletedAt: holes.deletedAt })
+    .from(holes)
+    .where(and(eq(holes.projectId, projectId), eq(holes.name, name)))
+  if (binned?.deletedAt)
+    throw conflict(
+      `A deleted hole is named ${name}: restore it, or ask an administrator to purge it first.`,
+      'hole_name_in_bin',
+    )
 }
