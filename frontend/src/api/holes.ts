@@ -38,3 +38,28 @@ export const updateStation = (
 
 export const deleteStation = (projectId: IdParam, holeId: IdParam, stationId: IdParam) =>
   api.delete<unknown>(`${surveyPath(projectId, holeId)}/${seg(stationId)}`)
+
+/** A deleted hole in the project's bin (leads), with what it holds and until when it comes back. */
+export interface DeletedHole {
+  id: number
+  name: string
+  deletedAt: string
+  deletedBy: string | null
+  restorableUntil: string
+  structures: number
+  runs: number
+  stations: number
+  intervals: number
+  issuedIntervals: number
+  curves: number
+}
+
+export const listDeletedHoles = (projectId: IdParam) =>
+  api.get<DeletedHole[]>(`${holesPath(projectId)}/deleted`)
+
+export const restoreHole = (projectId: IdParam, holeId: IdParam) =>
+  api.post<Hole>(`${holePath(projectId, holeId)}/restore`)
+
+/** Administrators only: removes a deleted hole for good (never one with issued intervals). */
+export const purgeHole = (projectId: IdParam, holeId: IdParam) =>
+  api.delete<unknown>(`${holePath(projectId, holeId)}/purge`)
