@@ -27,6 +27,7 @@ export const ProjectCreateBody = createInsertSchema(projects, {
     crsEpsg: true,
     declinationMode: true,
     declinationDeg: true,
+    convergenceMode: true,
     gridConvergenceDeg: true,
     referenceLine: true,
     steepThresholdDeg: true,
@@ -38,7 +39,8 @@ export const ProjectCreateBody = createInsertSchema(projects, {
 
 export const ProjectUpdateBody = ProjectCreateBody.omit({ code: true, leadUserId: true })
   .partial()
-  .extend({ version })
+  // Four eyes is a lead's later decision, not part of creating a project (it starts on).
+  .extend({ version, fourEyes: z.boolean().optional() })
   .strict()
 
 export const MemberAddBody = z

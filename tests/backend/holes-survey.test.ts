@@ -44,10 +44,11 @@ describe('PUT /api/projects/:projectId/holes/:holeId/survey', () => {
     expect(events[0]).toMatchObject({ action: 'replace', userId: fx.userIds.logger })
   })
 
-  it('PUT survey → grid azimuths corrected with the convergence (true = grid + convergence)', async () => {
+  it('PUT survey → grid azimuths corrected with the manual convergence (true = grid + convergence)', async () => {
     const [p] = await fx.db.select().from(projects).where(eq(projects.id, fx.projectId))
     await lead.patch(`/api/projects/${fx.projectId}`, {
       version: p.version,
+      convergenceMode: 'manual',
       gridConvergenceDeg: 1.5,
     })
     const res = await logger.put(survey(), {

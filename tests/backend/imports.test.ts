@@ -105,6 +105,41 @@ describe('POST /api/projects/:projectId/holes/:holeId/imports — bad files', ()
     ])
   })
 
+  it("imports → 422 naming line and column for structures beyond the hole's final depth (100 m)", async () => {
+    const file = Buffer.from('depth,type,alpha,beta\n99.5,joint,60,0\n100.5,joint,45,90\n')
+    const res = await nothingWritten(() => upload(logger, 'structures', file, 'deep.csv'))
+    expect(res.status).toBe(422)
+    expect(res.body.error.details).toEqual([
+      {
+        path: 'file.line.3.depth',
+        message:
+          "row 2 (line 3), column depth: depth 100.5 m is beyond the hole's final depth (100 m)",
+      },
+    ])
+  })
+
+  it('imports → 422 naming the to column of a run and the station depth beyond the final depth', async () => {
+    const runs = Buffer.from('from,to,recovered,solid,rqd\n97,100,3,3,3\n100,103,3,3,3\n')
+    const r = await nothingWritten(() => upload(logger, 'runs', runs, 'runs.csv'))
+    expect(r.status).toBe(422)
+    expect(r.body.error.details.map((d: { path: string }) => d.path)).toEqual(['file.line.3.to'])
+    // 330 ft = 100.584 m: the depth is compared in metres after conversion
+    const survey = Buffer.from('md,azimuth,dip\n0,10,60\n330,11,59\n')
+    const s = await nothingWritten(() =>
+      upload(logger, 'survey', survey, 'survey.csv', {
+        options: JSON.stringify({ depthUnit: 'ft', azimuthReference: 'true' }),
+      }),
+    )
+    expect(s.status).toBe(422)
+    expect(s.body.error.details).toEqual([
+      {
+        path: 'file.line.3.md',
+        message:
+          "row 2 (line 3), column md: depth 100.584 m is beyond the hole's final depth (100 m)",
+      },
+    ])
+  })
+
   it('imports → 400 empty_file for an empty file', async () => {
     const res = await nothingWritten(() =>
       upload(logger, 'structures', testdata('empty.csv'), 'empty.csv'),

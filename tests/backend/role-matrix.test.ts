@@ -25,7 +25,8 @@ import {
   type Fixture,
 } from './fixture'
 
-type Need = 'public' | 'signed-in' | 'admin' | 'viewer' | 'logger' | 'engineer' | 'lead'
+type Need =
+  'public' | 'signed-in' | 'admin' | 'project-admin' | 'viewer' | 'logger' | 'engineer' | 'lead'
 interface RouteCase {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete'
   route: string
@@ -45,6 +46,8 @@ function expected(c: RouteCase, who: Actor | 'anonymous'): number {
   if (who === 'anonymous') return 401
   if (c.need === 'signed-in') return c.ok
   if (c.need === 'admin') return who === 'admin' ? c.ok : 403
+  // an administrator's route under a project: outsiders still learn nothing of the project
+  if (c.need === 'project-admin') return who === 'admin' ? c.ok : who === 'outsider' ? 404 : 403
   if (who === 'admin') return c.ok
   if (who === 'outsider') return 404
   return rank[who] >= rank[c.need] ? c.ok : 403
@@ -115,6 +118,15 @@ const freshImport = async (fx: Fixture) => {
       rowCount: 1,
     })
     .returning()
+  return i
+}
+/** A committed structures import that added no rows: undoing it touches no interval. */
+const freshCommitted = async (fx: Fixture) => {
+  const i = await freshImport(fx)
+  await fx.db
+    .update(imports)
+    .set({ status: 'committed', committedAt: new Date() })
+    .where(eq(imports.id, i.id))
   return i
 }
 const freshInterval = async (fx: Fixture) => {
@@ -293,6 +305,39 @@ const cases: RouteCase[] = [
     },
   },
   {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/deleted',
+    need: 'lead',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${P(fx)}/holes/deleted` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/restore',
+    need: 'lead',
+    ok: 200,
+    prepare: async (fx) => {
+      const [h] = await fx.db
+        .insert(holes)
+        .values({ ...holeValues(fx.projectId, `BIN-${unique()}`), deletedAt: new Date() })
+        .returning()
+      return { path: `${P(fx)}/holes/${h.id}/restore` }
+    },
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/purge',
+    need: 'project-admin',
+    ok: 204,
+    prepare: async (fx) => {
+      const [h] = await fx.db
+        .insert(holes)
+        .values({ ...holeValues(fx.projectId, `BIN-${unique()}`), deletedAt: new Date() })
+        .returning()
+      return { path: `${P(fx)}/holes/${h.id}/purge` }
+    },
+  },
+  {
     method: 'delete',
     route: '/api/projects/:projectId/holes/:holeId',
     need: 'lead',
@@ -460,6 +505,13 @@ const cases: RouteCase[] = [
     need: 'logger',
     ok: 200,
     prepare: async (fx) => ({ path: `${H(fx)}/imports/${(await freshImport(fx)).id}/commit` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/imports/:importId/undo',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/imports/${(await freshCommitted(fx)).id}/undo` }),
   },
   {
     method: 'get',
@@ -765,6 +817,8 @@ let fx: Fixture
 const clients = {} as Record<Actor | 'anonymous', Client>
 beforeAll(async () => {
   fx = await createFixture()
+  // Fresh runs and stations sit thousands of metres down so they never overlap: a hole that deep.
+  await fx.db.update(holes).set({ finalDepth: 100_000 }).where(eq(holes.id, fx.holeId))
   for (const who of [...actors, 'anonymous'] as const) clients[who] = await clientFor(fx.app, who)
 })
 afterAll(() => fx.close())

@@ -19,6 +19,7 @@ const saved: SurveyRow = {
   method: 'gyro',
   trueAzimuth: 188.75,
   declinationApplied: 2.25,
+  convergenceApplied: 0,
 }
 const draft: SurveyRow = {
   key: 'r2',
@@ -91,7 +92,26 @@ describe('HoleSurveyTable', () => {
       'gyro',
       '188.75°',
       '2.25° E',
+      '0.000°',
     ])
+  })
+
+  it('shows the grid convergence a grid station got beside the declination', () => {
+    const grid: SurveyRow = {
+      ...saved,
+      azimuthReference: 'grid',
+      trueAzimuth: 186.655,
+      declinationApplied: 0,
+      convergenceApplied: 0.155,
+    }
+    const wrapper = mount(HoleSurveyTable, {
+      props: { rows: [grid], readonly: true },
+      ...withPrimeVue,
+    })
+    expect(wrapper.get('[data-field="convergenceApplied"]').text()).toBe('0.155° E')
+    expect(wrapper.get('[data-field="declinationApplied"]').text()).toBe('0.00°')
+    const heads = wrapper.findAll('th').map((th) => th.text())
+    expect(heads.slice(-2)).toEqual(['Declination applied', 'Convergence applied'])
   })
 
   it('marks rows with errors', () => {
@@ -135,9 +155,16 @@ describe('rowFromStation()', () => {
       azimuthReference: 'magnetic',
       azimuthEntered: 189,
       declinationApplied: 2.2,
+      convergenceApplied: 0,
       method: 'multishot',
       version: 1,
     })
-    expect(row).toMatchObject({ stationId: 7, azimuth: 189, trueAzimuth: 191.2, depth: 12 })
+    expect(row).toMatchObject({
+      stationId: 7,
+      azimuth: 189,
+      trueAzimuth: 191.2,
+      depth: 12,
+      convergenceApplied: 0,
+    })
   })
 })

@@ -18,7 +18,10 @@ export const demoProject = {
   crsEpsg: 32630,
   declinationMode: 'auto' as const,
   declinationDeg: -1.2,
-  gridConvergenceDeg: -0.9,
+  // Grid convergence from the CRS at each collar: +0.155° at GSQ-BH01 (grid north east of true
+  // north, 12 km east of the zone's central meridian). The manual value is that, rounded.
+  convergenceMode: 'auto' as const,
+  gridConvergenceDeg: 0.16,
   referenceLine: 'bottom' as const,
   steepThresholdDeg: 85,
   netProjection: 'equal-area' as const,

@@ -85,12 +85,49 @@ function crossRowErrors(kind: CsvImportKind, a: Pick<Analysis, 'rows' | 'mapping
   return errors
 }
 
+/** The depth field of each kind that must lie within the hole: a run ends by its toDepth. */
+const deepestField = {
+  structures: 'depth',
+  picks: 'depth',
+  survey: 'depth',
+  runs: 'toDepth',
+} as const
+
+/** Rows deeper than the hole's final depth, named by line and by the column the depth came from. */
+function beyondFinalDepth(
+  kind: CsvImportKind,
+  a: Pick<Analysis, 'rows' | 'mapping'>,
+  finalDepth: number | undefined,
+): RowError[] {
+  if (finalDepth === undefined) return []
+  const field = deepestField[kind]
+  return a.rows.flatMap((r) => {
+    const depth = (r.value as unknown as Record<typeof field, number>)[field]
+    if (!(depth > finalDepth + 1e-9)) return []
+    return [
+      {
+        row: r.row,
+        line: r.line,
+        column: a.mapping[field] ?? field,
+        message: `${field} ${Math.round(depth * 1000) / 1000} m is beyond the hole's final depth (${finalDepth} m)`,
+      },
+    ]
+  })
+}
+
+/** What the rows are checked against besides the file itself. */
+export interface AnalyseLimits {
+  /** The hole's final depth, metres: no row may lie deeper. */
+  finalDepth?: number
+}
+
 /** Reads an upload of one kind with a mapping (suggested from the headers when absent) and options. */
 export function analyseCsv<K extends CsvImportKind>(
   kind: K,
   file: Buffer,
   mappingIn: Record<string, string> | undefined,
   optionsIn: unknown,
+  limits: AnalyseLimits = {},
 ): Analysis<K> {
   const spec = kinds[kind]
   const opts = (spec.options as z.ZodType).safeParse(optionsIn ?? {})
@@ -102,7 +139,10 @@ export function analyseCsv<K extends CsvImportKind>(
     spec.rowSchema as unknown as (o: unknown, m: Set<string>) => z.ZodType<KindRows[K]>
   )(opts.data, new Set(index.keys()))
   const { rows, errors } = readRows(table, spec.fields, index, schema)
-  const cross = crossRowErrors(kind, { rows, mapping })
+  const cross = [
+    ...crossRowErrors(kind, { rows, mapping }),
+    ...beyondFinalDepth(kind, { rows, mapping }, limits.finalDepth),
+  ]
   const all = [...errors, ...cross].sort((x, y) => x.line - y.line)
   return {
     kind,

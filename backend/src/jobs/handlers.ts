@@ -2,7 +2,7 @@ import type pg from 'pg'
 import type { Db } from '../db/client'
 import { ApiError } from '../http/errors'
 import type { Logger } from '../logger'
-import { commitImport } from '../services/imports'
+import { commitImport } from '../services/import-commit'
 import { runPackBuild } from '../exports/pack-build'
 import type { JobHandler } from './queue'
 
@@ -14,7 +14,11 @@ export function importCommitJob(db: Db, pool: pg.Pool, logger: Logger): JobHandl
   return async (data) => {
     const importId = String(data.importId)
     try {
-      await commitImport(db, pool, importId, { fromJob: true, actorId: Number(data.actorId) })
+      await commitImport(db, pool, importId, {
+        fromJob: true,
+        actorId: Number(data.actorId),
+        confirmDuplicate: data.confirmDuplicate === true,
+      })
     } catch (err: unknown) {
       if (err instanceof ApiError) {
         logger.warn({ importId, code: err.code }, 'import refused')

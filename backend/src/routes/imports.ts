@@ -10,14 +10,10 @@ import { inputOf, validate } from '../http/validate'
 import { cleanFileName, singleUpload } from '../http/upload'
 import { csvImportKinds } from '../imports/analyse'
 import { holeOf } from './holes'
-import {
-  BACKGROUND_ROWS,
-  commitImport,
-  createImport,
-  getImport,
-  importView,
-  queueImport,
-} from '../services/imports'
+import { BACKGROUND_ROWS, createImport, getImport, importView } from '../services/imports'
+import { commitImport, queueImport } from '../services/import-commit'
+import { assertNotDuplicate } from '../services/import-guards'
+import { undoImport } from '../services/import-undo'
 
 /** A multipart text field holding JSON (mapping, options). */
 const jsonField = <T extends z.ZodType>(schema: T) =>
@@ -41,6 +37,8 @@ const UploadBody = z.object({
   options: jsonField(z.record(z.string(), z.unknown())),
 })
 const ImportParams = z.object({ importId: z.uuid() })
+/** The same file committed here before: the caller must say it means to commit it again. */
+const CommitBody = z.object({ confirmDuplicate: z.boolean().optional() }).strict()
 
 export interface ImportDeps {
   db: Db
@@ -99,21 +97,52 @@ export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Ro
   router.post(
     '/:importId/commit',
     requireRole('logger'),
-    validate({ params: ImportParams }),
+    validate({ params: ImportParams, body: CommitBody }),
     async (req, res) => {
       const hole = await holeOf(db, req, res)
-      const { params } = inputOf(res, { params: ImportParams })
+      const { params, body } = inputOf(res, { params: ImportParams, body: CommitBody })
       const found = await getImport(db, hole.projectId, hole.id, params.importId)
+      const confirmDuplicate = body.confirmDuplicate === true
       if (jobs && found.rowCount > BACKGROUND_ROWS) {
+        // Refused before queueing so the caller hears it now; the job checks again.
+        if (found.status === 'previewed') await assertNotDuplicate(db, found, confirmDuplicate)
         await queueImport(db, found.id)
-        await jobs.send('import-commit', { importId: found.id, actorId: req.user!.id })
+        await jobs.send('import-commit', {
+          importId: found.id,
+          actorId: req.user!.id,
+          confirmDuplicate,
+        })
         res
           .status(202)
           .json({ data: importView(await getImport(db, hole.projectId, hole.id, found.id)) })
         return
       }
-      await commitImport(db, pool, found.id, { fromJob: false, actorId: req.user!.id })
+      await commitImport(db, pool, found.id, {
+        fromJob: false,
+        actorId: req.user!.id,
+        confirmDuplicate,
+      })
       res.json({ data: importView(await getImport(db, hole.projectId, hole.id, found.id)) })
+    },
+  )
+
+  router.post(
+    '/:importId/undo',
+    requireRole('logger'),
+    validate({ params: ImportParams }),
+    async (req, res) => {
+      const hole = await holeOf(db, req, res)
+      const { params } = inputOf(res, { params: ImportParams })
+      const { project } = projectLocals(res)
+      const done = await undoImport(db, req.user!.id, project, hole.id, params.importId)
+      res.json({
+        data: {
+          ...importView(done.import),
+          removed: done.removed,
+          restored: done.restored,
+          recomputed: done.recomputed,
+        },
+      })
     },
   )
   return router

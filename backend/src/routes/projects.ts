@@ -18,6 +18,7 @@ import type { ImportDeps } from './imports'
 import {
   addMember,
   changeMember,
+  collarConvergence,
   createProject,
   listMembers,
   listProjectsFor,
@@ -50,9 +51,12 @@ export function projectRouter(deps: ImportDeps): Router {
   router.use('/packs', packsRouter({ db, jobs: deps.jobs }))
   router.use('/comments', commentsRouter(db))
   router.use('/audit', auditRouter(db))
-  router.get('/', (_req, res) => {
+  // The convergence at each collar travels with the project: settings and survey panels show it.
+  router.get('/', async (_req, res) => {
     const { project, role } = projectLocals(res)
-    res.json({ data: { ...project, role } })
+    res.json({
+      data: { ...project, role, collarConvergence: await collarConvergence(db, project) },
+    })
   })
   router.patch(
     '/',
@@ -61,7 +65,8 @@ export function projectRouter(deps: ImportDeps): Router {
     async (req, res) => {
       const { project, role } = projectLocals(res)
       const { body } = inputOf(res, { body: ProjectUpdateBody })
-      res.json({ data: { ...(await updateProject(db, req.user!.id, project, body)), role } })
+      const after = await updateProject(db, req.user!.id, project, body)
+      res.json({ data: { ...after, role, collarConvergence: await collarConvergence(db, after) } })
     },
   )
   router.get('/members', async (_req, res) => {

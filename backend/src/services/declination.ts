@@ -1,9 +1,11 @@
 import { magneticDeclination, toTrueAzimuth } from '../../../orient/index'
 import type { Hole, Project } from '../../../schema/index'
 import { badRequest } from '../http/errors'
-import { crsDefinition, toLatLon } from './crs'
+import { crsDefinition, gridConvergenceAt, toLatLon } from './crs'
 
 type DeclinationSettings = Pick<Project, 'declinationMode' | 'crsEpsg'>
+type ConvergenceSettings = Pick<Project, 'convergenceMode' | 'gridConvergenceDeg' | 'crsEpsg'>
+type Collar = Pick<Hole, 'collarEast' | 'collarNorth'>
 
 /** Auto declination needs a CRS we can place on the globe: refuse settings that cannot work. */
 export function checkDeclinationSettings(p: Partial<DeclinationSettings>): void {
@@ -38,6 +40,51 @@ export function declinationFor(
     project.declinationDeg
   )
 }
+
+/**
+ * Refuses automatic convergence with a CRS Downdip cannot project. Checked only when the request
+ * sets the mode or the CRS, so a project whose CRS predates the rule can still be edited otherwise.
+ */
+export function checkConvergenceSettings(
+  p: Partial<ConvergenceSettings>,
+  sent: Partial<ConvergenceSettings>,
+): void {
+  if (sent.convergenceMode === undefined && sent.crsEpsg === undefined) return
+  if (p.convergenceMode !== 'auto' || p.crsEpsg === undefined || crsDefinition(p.crsEpsg)) return
+  throw badRequest('Automatic grid convergence needs a CRS Downdip can project', [
+    {
+      path: sent.crsEpsg !== undefined ? 'body.crsEpsg' : 'body.convergenceMode',
+      message: `EPSG:${p.crsEpsg} is not supported for automatic grid convergence; choose a supported CRS or a manual convergence`,
+    },
+  ])
+}
+
+/**
+ * Where a hole's convergence comes from: the CRS at the collar, the manual value, or the manual
+ * value because the CRS cannot be projected (a project older than the convergence rule).
+ */
+export type ConvergenceSource = 'crs' | 'manual' | 'manual-fallback'
+
+/**
+ * Grid convergence γ in degrees for a hole, with grid azimuth = true azimuth − γ (so true = grid +
+ * γ; γ > 0 when grid north lies east of true north): the project's manual value, or γ of the
+ * project CRS at the collar (`gridConvergenceAt`, proj4).
+ */
+export function convergenceDetail(
+  project: ConvergenceSettings,
+  hole: Collar,
+): { convergenceDeg: number; source: ConvergenceSource } {
+  if (project.convergenceMode === 'manual')
+    return { convergenceDeg: project.gridConvergenceDeg, source: 'manual' }
+  const gamma = gridConvergenceAt(project.crsEpsg, hole.collarEast, hole.collarNorth)
+  return gamma === undefined
+    ? { convergenceDeg: project.gridConvergenceDeg, source: 'manual-fallback' }
+    : { convergenceDeg: gamma, source: 'crs' }
+}
+
+/** The convergence (degrees, grid = true − γ) applied to a hole's grid-referenced azimuths. */
+export const convergenceFor = (project: ConvergenceSettings, hole: Collar): number =>
+  convergenceDetail(project, hole).convergenceDeg
 
 export const normaliseAzimuth = (a: number) => ((a % 360) + 360) % 360
 

@@ -1,41 +1,32 @@
-import { and, eq, inArray, sql } from 'drizzle-orm'
-import { drizzle } from 'drizzle-orm/node-postgres'
-import type pg from 'pg'
-import * as schema from '../../../schema/index'
+import { createHash } from 'node:crypto'
+import { and, eq } from 'drizzle-orm'
 import {
-  holes,
   imports,
-  projects,
-  structures,
   type Hole,
   type Import,
   type Project,
   type StructureInputT,
 } from '../../../schema/index'
 import type { Db } from '../db/client'
-import { ApiError, conflict, notFound } from '../http/errors'
+import { ApiError, notFound } from '../http/errors'
 import { analyseCsv, type Analysis, type CsvImportKind } from '../imports/analyse'
 import { rowErrorDetails } from '../imports/csv-rows'
-import { copyStructures } from '../imports/copy-structures'
-import { audit } from './audit'
 import { computeStructures, storedInputs, type StructureComputed } from '../../../orient/index'
-import { insertPicks, picksToStructures } from './picks'
+import { picksToStructures } from './picks'
 import type { PickImportOptionsT } from '../imports/kinds/picks'
 import { loadComputeContext } from './structure-context'
-import { recomputeStructures } from './structures'
-import { replaceRunsIn } from './runs'
-import { replaceSurveyIn } from './survey'
+import { duplicateOf, intervalsReached, reachOf, reachedView, replacedOf } from './import-guards'
 
 /** Imports above this many rows commit as a background job; smaller ones within the request. */
 export const BACKGROUND_ROWS = 5_000
 const SAMPLE_ROWS = 20
 
-interface StoredSettings {
+export interface StoredSettings {
   mapping: Record<string, string>
   options: Record<string, unknown>
 }
 
-function rowErrorsFail(a: Analysis): never {
+export function rowErrorsFail(a: Analysis): never {
   throw new ApiError(
     422,
     'row_errors',
@@ -52,7 +43,7 @@ function rowErrorsFail(a: Analysis): never {
 }
 
 /** A structure as posted or imported → what computeStructures reads (a true orientation as input). */
-const computeInput = (s: StructureInputT) => ({
+export const computeInput = (s: StructureInputT) => ({
   ...s,
   source: s.source ?? 'core',
   inputDip: s.dip,
@@ -116,8 +107,9 @@ export async function createImport(
   mapping: Record<string, string> | undefined,
   options: unknown,
 ) {
-  const a = analyseCsv(kind, file.buffer, mapping, options)
+  const a = analyseCsv(kind, file.buffer, mapping, options, { finalDepth: hole.finalDepth })
   if (a.errors.length) rowErrorsFail(a)
+  const sha256 = createHash('sha256').update(file.buffer).digest('hex')
   const preview =
     kind === 'structures'
       ? await structurePreview(db, project, hole, a as Analysis<'structures'>)
@@ -136,6 +128,7 @@ export async function createImport(
       kind,
       fileName: file.name,
       file: file.buffer,
+      sha256,
       options: settings,
       rowCount: a.rows.length,
       createdBy: actorId,
@@ -150,7 +143,14 @@ export async function createImport(
     options: a.options,
     rowCount: a.rows.length,
     background: a.rows.length > BACKGROUND_ROWS,
+    // e.g. "not UTF-8: read as Windows-1252": the preview must show it before anyone commits
+    encoding: a.table.encoding,
+    warnings: a.table.warnings,
     ...preview,
+    // The same bytes already committed here: the UI warns, the commit needs a confirmation.
+    duplicateOf: (await duplicateOf(db, { holeId: hole.id, kind, sha256 })) ?? null,
+    // Approved ones refuse the commit; checked ones go back to draft when it goes through.
+    intervalsReached: reachedView(await intervalsReached(db, hole.id, reachOf(a))),
   }
 }
 
@@ -164,6 +164,9 @@ export const importView = (i: Import) => ({
   message: i.message,
   createdAt: i.createdAt,
   committedAt: i.committedAt,
+  undoneAt: i.undoneAt,
+  /** Rows a replacing import took out, which undoing it puts back. */
+  replacedCount: replacedOf(i)?.rows.length ?? 0,
 })
 
 export async function getImport(
@@ -178,138 +181,4 @@ export async function getImport(
     .where(and(eq(imports.id, id), eq(imports.projectId, projectId), eq(imports.holeId, holeId)))
   if (!row) throw notFound('Import')
   return row
-}
-
-/** Moves an import from a waiting state to `committing`; only one caller can win. */
-async function claim(db: Db, id: string, states: Import['status'][]): Promise<Import | undefined> {
-  const [row] = await db
-    .update(imports)
-    .set({ status: 'committing', progress: 0, message: '' })
-    .where(and(eq(imports.id, id), inArray(imports.status, states)))
-    .returning()
-  return row
-}
-
-/** Marks the import as waiting for a worker. */
-export async function queueImport(db: Db, id: string): Promise<void> {
-  const [row] = await db
-    .update(imports)
-    .set({ status: 'queued', message: 'waiting for a worker' })
-    .where(and(eq(imports.id, id), eq(imports.status, 'previewed')))
-    .returning({ id: imports.id })
-  if (!row)
-    throw conflict('This import is already committed or being committed.', 'import_not_pending')
-}
-
-/**
- * Commits a previewed (or queued) import in ONE transaction: structures by COPY, runs and survey
- * by replacement. Any failure rolls everything back; the import then reads `failed` with the
- * reason (from a job) or stays `previewed` (from a request, which sees the error itself).
- */
-export async function commitImport(
-  db: Db,
-  pool: pg.Pool,
-  id: string,
-  opts: { fromJob: boolean; actorId: number },
-) {
-  const claimed = await claim(
-    db,
-    id,
-    opts.fromJob ? ['queued', 'committing', 'failed'] : ['previewed'],
-  )
-  if (!claimed)
-    throw conflict('This import is already committed or being committed.', 'import_not_pending')
-  const client = await pool.connect()
-  const tx = drizzle(client, { schema })
-  try {
-    await client.query('begin')
-    const [project] = await tx.select().from(projects).where(eq(projects.id, claimed.projectId))
-    const [hole] = await tx.select().from(holes).where(eq(holes.id, claimed.holeId!)).for('update')
-    const settings = claimed.options as StoredSettings
-    const a = analyseCsv(
-      claimed.kind as CsvImportKind,
-      claimed.file,
-      settings.mapping,
-      settings.options,
-    )
-    if (a.errors.length) rowErrorsFail(a)
-    const userId = opts.actorId
-    if (a.kind === 'structures') {
-      const existing = await tx
-        .select({ n: sql<number>`count(*)::int` })
-        .from(structures)
-        .where(eq(structures.holeId, hole.id))
-      const ctx = await loadComputeContext(tx, project, hole)
-      const inputs = (a as Analysis<'structures'>).rows
-        .map((r) => r.value)
-        .sort((x, y) => x.depth - y.depth)
-      const computed = computeStructures(ctx, inputs.map(computeInput))
-      const progress = (done: number) =>
-        db
-          .update(imports)
-          .set({ progress: Math.round((90 * done) / inputs.length) })
-          .where(eq(imports.id, id))
-          .then(() => undefined)
-      await copyStructures(
-        client,
-        { holeId: hole.id, surveyRevision: hole.surveyRevision, importId: id, userId },
-        inputs,
-        computed,
-        progress,
-      )
-      // Beta jumps and run flags depend on neighbours: with earlier structures, recompute the hole.
-      if (existing[0].n > 0) await recomputeStructures(tx, project, hole)
-    } else if (a.kind === 'picks') {
-      const ctx = await loadComputeContext(tx, project, hole)
-      const rows = picksToStructures(
-        ctx,
-        project,
-        hole,
-        (a as Analysis<'picks'>).rows.map((r) => r.value),
-        a.options as PickImportOptionsT,
-      )
-      await insertPicks(tx, rows, id, userId)
-      await recomputeStructures(tx, project, hole)
-    } else if (a.kind === 'runs') {
-      await replaceRunsIn(
-        tx,
-        userId,
-        project,
-        hole,
-        (a as Analysis<'runs'>).rows.map((r) => r.value),
-      )
-    } else {
-      await replaceSurveyIn(
-        tx,
-        userId,
-        project,
-        hole,
-        (a as Analysis<'survey'>).rows.map((r) => r.value),
-      )
-    }
-    await tx
-      .update(imports)
-      .set({ status: 'committed', progress: 100, committedAt: new Date(), message: '' })
-      .where(eq(imports.id, id))
-    await audit(tx, {
-      projectId: project.id,
-      userId,
-      entity: 'import',
-      entityId: id,
-      action: 'import',
-      after: { kind: a.kind, fileName: claimed.fileName, rows: a.rows.length, ...settings },
-    })
-    await client.query('commit')
-    return { status: 'committed' as const, rowCount: a.rows.length }
-  } catch (err: unknown) {
-    await client.query('rollback')
-    const message = err instanceof Error ? err.message : String(err)
-    await db
-      .update(imports)
-      .set(opts.fromJob ? { status: 'failed', message } : { status: 'previewed', message })
-      .where(eq(imports.id, id))
-    throw err
-  } finally {
-    client.release()
-  }
 }

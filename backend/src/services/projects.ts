@@ -1,5 +1,6 @@
 import { and, eq } from 'drizzle-orm'
 import {
+  holes,
   memberships,
   projects,
   users,
@@ -11,7 +12,18 @@ import {
 import type { Db } from '../db/client'
 import { badRequest, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
-import { checkDeclinationSettings } from './declination'
+import {
+  checkConvergenceSettings,
+  checkDeclinationSettings,
+  convergenceDetail,
+} from './declination'
+import { crsDefinition } from './crs'
+import {
+  conventionsChanged,
+  noticeConventionDemotions,
+  recomputeConventions,
+  type HoleDemotions,
+} from './settings-recompute'
 
 export async function listProjectsFor(db: Db, user: Express.User) {
   if (user.isAdmin) {
@@ -33,8 +45,16 @@ export async function createProject(
   actorId: number,
   input: ProjectCreate,
 ): Promise<Project> {
-  const { leadUserId, ...fields } = input
+  const { leadUserId, ...given } = input
+  // Convergence defaults to the CRS's own unless the CRS cannot be projected: then it is manual.
+  const fields = {
+    ...given,
+    convergenceMode:
+      given.convergenceMode ??
+      (crsDefinition(given.crsEpsg) ? ('auto' as const) : ('manual' as const)),
+  }
   checkDeclinationSettings(fields)
+  checkConvergenceSettings(fields, given)
   return db.transaction(async (tx) => {
     const [lead] = await tx.select({ id: users.id }).from(users).where(eq(users.id, leadUserId))
     if (!lead)
@@ -53,7 +73,11 @@ export async function createProject(
   })
 }
 
-/** Lead edits settings; a stale `version` → 409. */
+/**
+ * Lead edits settings; a stale `version` → 409. A change of declination, convergence or CRS
+ * corrects every survey station again and recomputes the structures of the holes it changes, in
+ * the same transaction (or refuses 409 when that would change an approved interval).
+ */
 export async function updateProject(
   db: Db,
   actorId: number,
@@ -62,7 +86,9 @@ export async function updateProject(
 ): Promise<Project> {
   const { version, ...fields } = input
   checkDeclinationSettings({ ...project, ...fields })
-  return db.transaction(async (tx) => {
+  checkConvergenceSettings({ ...project, ...fields }, fields)
+  let demotions: HoleDemotions[] = []
+  const updated = await db.transaction(async (tx) => {
     const [after] = await tx
       .update(projects)
       .set({ ...fields, version: version + 1, updatedAt: new Date() })
@@ -78,8 +104,27 @@ export async function updateProject(
       before: project,
       after,
     })
+    if (conventionsChanged(project, after))
+      demotions = await recomputeConventions(tx, actorId, after)
     return after
   })
+  await noticeConventionDemotions(db, project.id, demotions)
+  return updated
+}
+
+/** The grid convergence each hole of the project gets, and where it comes from. */
+export async function collarConvergence(db: Db, project: Project) {
+  const rows = await db
+    .select({
+      holeId: holes.id,
+      name: holes.name,
+      collarEast: holes.collarEast,
+      collarNorth: holes.collarNorth,
+    })
+    .from(holes)
+    .where(eq(holes.projectId, project.id))
+    .orderBy(holes.name)
+  return rows.map((h) => ({ holeId: h.holeId, name: h.name, ...convergenceDetail(project, h) }))
 }
 
 export async function listMembers(db: Db, projectId: number) {

@@ -10,8 +10,9 @@ import {
 import type { Db, Executor } from '../db/client'
 import { notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
-import { azimuthToTrue, declinationFor } from './declination'
+import { azimuthToTrue, convergenceFor, declinationFor } from './declination'
 import { recomputeStructures } from './structures'
+import { guardWrite, writeAndNotice, type Demoted } from './freeze'
 
 export const listStations = (db: Executor, holeId: number) =>
   db
@@ -31,7 +32,8 @@ export function stationRow(project: Project, hole: Hole, input: StationInputT): 
       ? new Date(hole.startDate)
       : new Date()
   const declination = reference === 'magnetic' ? declinationFor(project, hole, date) : 0
-  const corrected = azimuthToTrue(input.azimuth, reference, declination, project.gridConvergenceDeg)
+  const convergence = reference === 'grid' ? convergenceFor(project, hole) : 0
+  const corrected = azimuthToTrue(input.azimuth, reference, declination, convergence)
   return {
     depth: input.depth,
     plunge: input.plunge,
@@ -45,14 +47,24 @@ export function stationRow(project: Project, hole: Hole, input: StationInputT): 
 
 /**
  * Run in the same transaction after any survey change: the hole's survey revision goes up and
- * every structure of the hole is recomputed with the new survey, audited as one recompute.
+ * every structure of the hole is recomputed with the new survey, audited as one recompute. Every
+ * interval of the hole is touched: 409 with an approved one, checked ones go back to draft (the
+ * hole row is locked before the intervals, in the order structure writes take them: no deadlock).
  */
-async function afterSurveyChange(tx: Executor, project: Project, hole: Hole, actorId: number) {
+async function afterSurveyChange(
+  tx: Executor,
+  project: Project,
+  hole: Hole,
+  actorId: number,
+  demoted: Demoted[],
+) {
   const [bumped] = await tx
     .update(holes)
     .set({ surveyRevision: sql`${holes.surveyRevision} + 1` })
     .where(eq(holes.id, hole.id))
     .returning()
+  const change = { what: "Changing the hole's survey", reason: "the hole's survey changed" }
+  demoted.push(...(await guardWrite(tx, actorId, project.id, hole.id, { hole: true }, change)))
   const count = await recomputeStructures(tx, project, bumped)
   if (count > 0) {
     await audit(tx, {
@@ -73,6 +85,7 @@ export async function replaceSurveyIn(
   project: Project,
   hole: Hole,
   stations: StationInputT[],
+  demoted: Demoted[] = [],
 ): Promise<SurveyStation[]> {
   const before = await listStations(tx, hole.id)
   await tx.delete(surveyStations).where(eq(surveyStations.holeId, hole.id))
@@ -82,7 +95,7 @@ export async function replaceSurveyIn(
       .values(stations.map((s) => ({ ...stationRow(project, hole, s), holeId: hole.id })))
   }
   const after = await listStations(tx, hole.id)
-  await afterSurveyChange(tx, project, hole, actorId)
+  await afterSurveyChange(tx, project, hole, actorId, demoted)
   await audit(tx, {
     projectId: project.id,
     userId: actorId,
@@ -101,7 +114,10 @@ export const replaceSurvey = (
   project: Project,
   hole: Hole,
   stations: StationInputT[],
-) => db.transaction((tx) => replaceSurveyIn(tx, actorId, project, hole, stations))
+) =>
+  writeAndNotice(db, project.id, hole, (tx, demoted) =>
+    replaceSurveyIn(tx, actorId, project, hole, stations, demoted),
+  )
 
 export async function addStation(
   db: Db,
@@ -110,12 +126,12 @@ export async function addStation(
   hole: Hole,
   input: StationInputT,
 ) {
-  return db.transaction(async (tx) => {
+  return writeAndNotice(db, project.id, hole, async (tx, demoted) => {
     const [row] = await tx
       .insert(surveyStations)
       .values({ ...stationRow(project, hole, input), holeId: hole.id })
       .returning()
-    await afterSurveyChange(tx, project, hole, actorId)
+    await afterSurveyChange(tx, project, hole, actorId, demoted)
     await audit(tx, {
       projectId: project.id,
       userId: actorId,
@@ -136,7 +152,7 @@ export async function updateStation(
   stationId: number,
   input: Partial<StationInputT> & { version: number },
 ) {
-  return db.transaction(async (tx) => {
+  return writeAndNotice(db, project.id, hole, async (tx, demoted) => {
     const where = and(eq(surveyStations.id, stationId), eq(surveyStations.holeId, hole.id))
     const [before] = await tx.select().from(surveyStations).where(where)
     if (!before) throw notFound('Survey station')
@@ -154,7 +170,7 @@ export async function updateStation(
       .where(and(where, eq(surveyStations.version, input.version)))
       .returning()
     if (!after) throw staleVersion()
-    await afterSurveyChange(tx, project, hole, actorId)
+    await afterSurveyChange(tx, project, hole, actorId, demoted)
     await audit(tx, {
       projectId: project.id,
       userId: actorId,
@@ -175,13 +191,13 @@ export async function deleteStation(
   hole: Hole,
   stationId: number,
 ) {
-  await db.transaction(async (tx) => {
+  await writeAndNotice(db, project.id, hole, async (tx, demoted) => {
     const [before] = await tx
       .delete(surveyStations)
       .where(and(eq(surveyStations.id, stationId), eq(surveyStations.holeId, hole.id)))
       .returning()
     if (!before) throw notFound('Survey station')
-    await afterSurveyChange(tx, project, hole, actorId)
+    await afterSurveyChange(tx, project, hole, actorId, demoted)
     await audit(tx, {
       projectId: project.id,
       userId: actorId,

@@ -1,5 +1,5 @@
 import { api, seg } from './client'
-import type { CsvImportKind, IdParam, ImportPreview, ImportRecord } from './types'
+import type { CsvImportKind, IdParam, ImportPreview, ImportRecord, ImportUndone } from './types'
 
 const importsPath = (projectId: IdParam, holeId: IdParam) =>
   `/projects/${seg(projectId)}/holes/${seg(holeId)}/imports`
@@ -22,9 +22,24 @@ export function uploadImport(projectId: IdParam, holeId: IdParam, upload: Import
   return api.upload<ImportPreview>(importsPath(projectId, holeId), form)
 }
 
-/** 200 with status committed, or 202 with status queued when the server runs it as a job. */
-export const commitImport = (projectId: IdParam, holeId: IdParam, importId: string) =>
-  api.post<ImportRecord>(`${importsPath(projectId, holeId)}/${seg(importId)}/commit`)
+/**
+ * 200 with status committed, or 202 with status queued when the server runs it as a job. The same
+ * file committed to the hole before answers 409 `duplicate_import` unless `confirmDuplicate`.
+ */
+export const commitImport = (
+  projectId: IdParam,
+  holeId: IdParam,
+  importId: string,
+  confirmDuplicate = false,
+) =>
+  api.post<ImportRecord>(
+    `${importsPath(projectId, holeId)}/${seg(importId)}/commit`,
+    confirmDuplicate ? { confirmDuplicate: true } : {},
+  )
+
+/** Removes what a committed import added (and puts back what it replaced), in one transaction. */
+export const undoImport = (projectId: IdParam, holeId: IdParam, importId: string) =>
+  api.post<ImportUndone>(`${importsPath(projectId, holeId)}/${seg(importId)}/undo`)
 
 export const getImport = (projectId: IdParam, holeId: IdParam, importId: string) =>
   api.get<ImportRecord>(`${importsPath(projectId, holeId)}/${seg(importId)}`)

@@ -15,6 +15,8 @@ export const azimuthReferences = ['magnetic', 'true', 'grid'] as const
 export type AzimuthReference = (typeof azimuthReferences)[number]
 
 export type DeclinationMode = 'auto' | 'manual'
+/** Grid convergence from the CRS at each collar, or one value typed by hand. */
+export type ConvergenceMode = 'auto' | 'manual'
 export type ReferenceLine = 'bottom' | 'top'
 export type NetProjection = 'equal-area' | 'equal-angle'
 
@@ -57,13 +59,28 @@ export interface Project {
   crsEpsg: number
   declinationMode: DeclinationMode
   declinationDeg: number
+  /** The server always sends it; optional so fixtures written before it stay valid. */
+  convergenceMode?: ConvergenceMode
+  /** Degrees, grid azimuth = true azimuth − convergence; used when the mode is manual. */
   gridConvergenceDeg: number
+  /** The convergence each hole gets (sent with the project by GET and PATCH). */
+  collarConvergence?: CollarConvergence[]
   referenceLine: ReferenceLine
   steepThresholdDeg: number
   netProjection: NetProjection
+  /** Four eyes: an interval's approver must not be its checker (the server always sends it). */
+  fourEyes?: boolean
   version: number
   createdAt: string
   updatedAt: string
+}
+
+export interface CollarConvergence {
+  holeId: Id
+  name: string
+  convergenceDeg: number
+  /** From the CRS at the collar, the manual value, or the manual value for want of a known CRS. */
+  source: 'crs' | 'manual' | 'manual-fallback'
 }
 
 export interface ProjectWithRole extends Project {
@@ -87,10 +104,12 @@ export type ProjectSettings = Pick<
   | 'crsEpsg'
   | 'declinationMode'
   | 'declinationDeg'
+  | 'convergenceMode'
   | 'gridConvergenceDeg'
   | 'referenceLine'
   | 'steepThresholdDeg'
   | 'netProjection'
+  | 'fourEyes'
 >
 
 export type ProjectUpdate = { version: number } & Partial<ProjectSettings>
@@ -133,6 +152,8 @@ export interface Station {
   azimuthReference: AzimuthReference
   azimuthEntered: number
   declinationApplied: number
+  /** Grid convergence applied (grid-referenced stations; 0 otherwise). Always sent by the server. */
+  convergenceApplied?: number
   method: string
   version: number
 }
@@ -286,7 +307,7 @@ export interface Structure {
 
 export const csvImportKinds = ['structures', 'runs', 'survey', 'picks'] as const
 export type CsvImportKind = (typeof csvImportKinds)[number]
-export type ImportStatus = 'previewed' | 'queued' | 'committing' | 'committed' | 'failed'
+export type ImportStatus = 'previewed' | 'queued' | 'committing' | 'committed' | 'failed' | 'undone'
 
 /** One row of a clean preview; structures carry the orientation computed with the hole's survey. */
 export type ImportSampleRow = Record<string, unknown> & {
@@ -306,6 +327,16 @@ export interface ImportPreview {
   background: boolean
   sample: ImportSampleRow[]
   flagCounts: Record<string, number>
+  /** A committed import of the same bytes into this hole: committing again needs a confirmation. */
+  duplicateOf: { importId: string; fileName: string; committedAt: string | null } | null
+  /** Reviewed intervals the rows reach: approved ones refuse the commit, checked ones go to draft. */
+  intervalsReached: {
+    id: Id
+    name: string
+    fromDepth: number
+    toDepth: number
+    status: 'checked' | 'approved' | 'issued'
+  }[]
 }
 
 export interface ImportRecord {
@@ -318,4 +349,13 @@ export interface ImportRecord {
   message: string
   createdAt: string
   committedAt: string | null
+  undoneAt: string | null
+  /** Rows a replacing import (runs, survey) took out, put back if it is undone. */
+  replacedCount: number
+}
+
+export interface ImportUndone extends ImportRecord {
+  removed: number
+  restored: number
+  recomputed: number
 }

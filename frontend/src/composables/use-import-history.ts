@@ -1,6 +1,6 @@
 import { computed, onBeforeUnmount, ref } from 'vue'
-import { getImport, listImports } from '../api/imports'
-import type { ImportRecord } from '../api/types'
+import { getImport, listImports, undoImport } from '../api/imports'
+import type { ImportRecord, ImportUndone } from '../api/types'
 import { describeError } from '../components/format'
 import { isRunning } from './use-import-progress'
 
@@ -14,6 +14,9 @@ export function useImportHistory(projectId: () => string, holeId: () => string) 
   const records = ref<ImportRecord[]>([])
   const loading = ref(false)
   const error = ref<string | null>(null)
+  /** The import whose undo is on its way, and what the last undo did. */
+  const undoing = ref<string | null>(null)
+  const undone = ref<ImportUndone | null>(null)
   const running = computed(() => records.value.filter(isRunning))
   let timer: ReturnType<typeof setTimeout> | undefined
   let finished: ((r: ImportRecord) => void) | undefined
@@ -54,6 +57,25 @@ export function useImportHistory(projectId: () => string, holeId: () => string) 
     finished = handler
   }
 
+  /**
+   * Undoes a committed import (after the dialog's confirmation), then reloads the list and tells
+   * the page that the hole's data changed. A refusal (409: reviewed interval, edited rows) is shown
+   * as the list's error, naming why.
+   */
+  async function undo(record: ImportRecord) {
+    undoing.value = record.id
+    error.value = null
+    try {
+      undone.value = await undoImport(projectId(), holeId(), record.id)
+      await load()
+      finished?.(undone.value)
+    } catch (err: unknown) {
+      error.value = describeError(err, 'The import could not be undone.')
+    } finally {
+      undoing.value = null
+    }
+  }
+
   onBeforeUnmount(() => clearTimeout(timer))
-  return { records, loading, error, running, load, onFinished }
+  return { records, loading, error, running, undoing, undone, load, onFinished, undo }
 }

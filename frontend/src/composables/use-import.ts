@@ -38,8 +38,23 @@ export function useImport(
   const error = ref<string | null>(null)
   /** Mapping or options changed since the preview: check again before committing. */
   const stale = ref(false)
+  /** The logger saw that this file was committed here before and commits it again anyway. */
+  const confirmDuplicate = ref(false)
   const progress = useImportProgress(projectId, holeId)
-  const canCommit = computed(() => stage.value === 'preview' && !stale.value && !busy.value)
+  const duplicate = computed(() => preview.value?.duplicateOf ?? null)
+  const reached = computed(() => preview.value?.intervalsReached ?? [])
+  /** Approved (or issued) intervals the rows reach: the server refuses such a commit. */
+  const frozen = computed(() => reached.value.filter((i) => i.status !== 'checked'))
+  /** Checked intervals the rows reach: they go back to draft when the commit goes through. */
+  const demoted = computed(() => reached.value.filter((i) => i.status === 'checked'))
+  const canCommit = computed(
+    () =>
+      stage.value === 'preview' &&
+      !stale.value &&
+      !busy.value &&
+      frozen.value.length === 0 &&
+      (duplicate.value === null || confirmDuplicate.value),
+  )
 
   function reset() {
     progress.stop()
@@ -52,6 +67,7 @@ export function useImport(
     preview.value = null
     error.value = null
     stale.value = false
+    confirmDuplicate.value = false
   }
 
   async function check(withMapping: boolean) {
@@ -69,6 +85,7 @@ export function useImport(
       mapping.value = { ...preview.value.mapping }
       problems.value = null
       stale.value = false
+      confirmDuplicate.value = false
       stage.value = 'preview'
     } catch (err: unknown) {
       preview.value = null
@@ -126,7 +143,12 @@ export function useImport(
     busy.value = true
     error.value = null
     try {
-      const record = await commitImport(projectId(), holeId(), p.importId)
+      const record = await commitImport(
+        projectId(),
+        holeId(),
+        p.importId,
+        duplicate.value !== null && confirmDuplicate.value,
+      )
       stage.value = 'following'
       progress.follow(record, (r) => {
         stage.value = 'done'
@@ -150,6 +172,10 @@ export function useImport(
     busy,
     error,
     stale,
+    confirmDuplicate,
+    duplicate,
+    frozen,
+    demoted,
     canCommit,
     record: progress.record,
     progressError: progress.error,

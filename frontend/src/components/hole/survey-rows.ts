@@ -19,6 +19,8 @@ export interface SurveyRow {
   /** True-north azimuth and declination the server applied; null until saved. */
   trueAzimuth: number | null
   declinationApplied: number | null
+  /** Grid convergence the server applied (grid stations); shown only while trueAzimuth is known. */
+  convergenceApplied?: number | null
 }
 
 export type RowErrors = Partial<Record<SurveyField, string>>
@@ -37,6 +39,7 @@ export function rowFromStation(station: Station): SurveyRow {
     method: station.method,
     trueAzimuth: station.azimuth,
     declinationApplied: station.declinationApplied,
+    convergenceApplied: station.convergenceApplied ?? null,
   }
 }
 

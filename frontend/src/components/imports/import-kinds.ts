@@ -222,4 +222,5 @@ export const importStatusWords: Record<string, string> = {
   committing: 'committing',
   committed: 'committed',
   failed: 'failed',
+  undone: 'undone',
 }
