@@ -44,7 +44,7 @@ export const ProjectUpdateBody = ProjectCreateBody.omit({ code: true, leadUserId
   .strict()
 
 export const MemberAddBody = z
-  .object({ email: z.string().trim().email(), role: z.enum(projectRoles) })
+  .object({ email: z.string().trim().toLowerCase().email().max(254), role: z.enum(projectRoles) })
   .strict()
 export const MemberUpdateBody = z.object({ role: z.enum(projectRoles) }).strict()
 

@@ -247,7 +247,7 @@ const cases: RouteCase[] = [
     method: 'post',
     route: '/api/projects/:projectId/members',
     need: 'lead',
-    ok: 201,
+    ok: 202,
     prepare: async (fx) => ({
       path: `${P(fx)}/members`,
       body: { email: (await freshUser(fx)).email, role: 'viewer' },

@@ -49,7 +49,7 @@ describe('invitation path: lead invites → mail in the dev mailbox → colleagu
     await page.getByTestId('member-invite').click()
     await page.getByTestId('member-invited').waitFor()
     expect((await page.getByTestId('member-invited').innerText()).trim()).toBe(
-      `Invitation mailed to ${invitee}.`,
+      `Invitation mailed to ${invitee}: they join as viewer when they accept it.`,
     )
   })
 

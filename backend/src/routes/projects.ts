@@ -15,8 +15,8 @@ import { packsRouter } from './packs'
 import { commentsRouter } from './comments'
 import { auditRouter } from './audit'
 import type { ImportDeps } from './imports'
+import { createInvitation } from '../mail/invitations'
 import {
-  addMember,
   changeMember,
   collarConvergence,
   createProject,
@@ -72,20 +72,18 @@ export function projectRouter(deps: ImportDeps): Router {
   router.get('/members', async (_req, res) => {
     res.json({ data: await listMembers(db, projectLocals(res).project.id) })
   })
+  // Members join by invitation only: the answer is the same whether or not the address already
+  // has an account, so a lead learns nothing about other people's accounts (OWASP ASVS 4.0 V2.1).
   router.post(
     '/members',
     requireRole('lead'),
     validate({ body: MemberAddBody }),
     async (req, res) => {
       const { body } = inputOf(res, { body: MemberAddBody })
-      const member = await addMember(
-        db,
-        req.user!.id,
-        projectLocals(res).project.id,
-        body.email,
-        body.role,
-      )
-      res.status(201).json({ data: member })
+      const projectId = projectLocals(res).project.id
+      const invitation = await createInvitation(db, req.user!, { ...body, projectId })
+      const { email, role, expiresAt, mailed } = invitation
+      res.status(202).json({ data: { email, role, expiresAt, mailed } })
     },
   )
   router.patch(

@@ -136,36 +136,6 @@ export async function listMembers(db: Db, projectId: number) {
     .orderBy(users.name)
 }
 
-export async function addMember(
-  db: Db,
-  actorId: number,
-  projectId: number,
-  email: string,
-  role: ProjectRole,
-) {
-  return db.transaction(async (tx) => {
-    const [user] = await tx.select().from(users).where(eq(users.email, email.toLowerCase()))
-    if (!user) {
-      throw badRequest('No user with that e-mail', [
-        { path: 'body.email', message: 'no such user' },
-      ])
-    }
-    const [row] = await tx
-      .insert(memberships)
-      .values({ projectId, userId: user.id, role })
-      .returning()
-    await audit(tx, {
-      projectId,
-      userId: actorId,
-      entity: 'membership',
-      entityId: user.id,
-      action: 'create',
-      after: row,
-    })
-    return { userId: user.id, email: user.email, name: user.name, role: row.role }
-  })
-}
-
 export async function changeMember(
   db: Db,
   actorId: number,

@@ -22,8 +22,12 @@ export const updateProject = (projectId: IdParam, body: ProjectUpdate) =>
 
 export const listMembers = (projectId: IdParam) => api.get<Member[]>(`${base(projectId)}/members`)
 
+/** Invites into the project (202): the answer is the same whether or not the address has an account. */
 export const addMember = (projectId: IdParam, email: string, role: ProjectRole) =>
-  api.post<Member>(`${base(projectId)}/members`, { email, role })
+  api.post<{ email: string; role: ProjectRole; expiresAt: string; mailed: boolean }>(
+    `${base(projectId)}/members`,
+    { email, role },
+  )
 
 export const changeMemberRole = (projectId: IdParam, userId: IdParam, role: ProjectRole) =>
   api.patch<Member>(`${base(projectId)}/members/${seg(userId)}`, { role })

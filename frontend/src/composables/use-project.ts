@@ -74,9 +74,9 @@ export function useProject(projectId: () => string) {
     members.value = await listMembers(projectId())
   }
 
+  /** An invitation, not a membership: the member list changes when they accept. */
   async function addProjectMember(email: string, memberRole: ProjectRole) {
-    await addMember(projectId(), email, memberRole)
-    await refreshMembers()
+    return addMember(projectId(), email, memberRole)
   }
 
   async function changeRole(userId: Id, memberRole: ProjectRole) {
