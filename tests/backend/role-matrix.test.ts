@@ -306,6 +306,26 @@ const cases: RouteCase[] = [
   },
   {
     method: 'get',
+    route: '/api/projects/bin',
+    need: 'signed-in',
+    ok: 200,
+    prepare: async () => ({ path: '/api/projects/bin' }),
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/bin/:projectId',
+    need: 'admin',
+    ok: 204,
+    prepare: async (fx) => {
+      const [p] = await fx.db
+        .insert(projects)
+        .values({ code: `BIN${unique()}`, name: 'Bin', crsEpsg: 32630, deletedAt: new Date() })
+        .returning()
+      return { path: `/api/projects/bin/${p.id}` }
+    },
+  },
+  {
+    method: 'get',
     route: '/api/projects/:projectId/holes/deleted',
     need: 'lead',
     ok: 200,

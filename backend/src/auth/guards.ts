@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express'
-import { and, eq } from 'drizzle-orm'
+import { and, eq, isNull } from 'drizzle-orm'
 import { z } from 'zod'
 import {
   memberships,
@@ -38,8 +38,8 @@ export function projectLocals(res: { locals: Record<string, unknown> }): Project
 const ProjectIdParam = z.coerce.number().int().positive()
 
 /**
- * Finds `:projectId` and the caller's role in it. Not a member (or no such project) → 404, so a
- * project's existence never leaks. A global admin acts as lead in every project.
+ * Finds `:projectId` and the caller's role in it. Not a member (or no such project, or a deleted
+ * one) → 404, so a project's existence never leaks. A global admin acts as lead in every project.
  */
 export function loadProject(db: Db): RequestHandler {
   return async (req, res, next) => {
@@ -53,7 +53,7 @@ export function loadProject(db: Db): RequestHandler {
         memberships,
         and(eq(memberships.projectId, projects.id), eq(memberships.userId, req.user.id)),
       )
-      .where(eq(projects.id, id.data))
+      .where(and(eq(projects.id, id.data), isNull(projects.deletedAt)))
     const role: ProjectRole | null = req.user.isAdmin ? 'lead' : (row?.role ?? null)
     if (!row || !role) throw notFound('Project')
     res.locals.project = row.project

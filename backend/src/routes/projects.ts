@@ -17,6 +17,12 @@ import { auditRouter } from './audit'
 import type { ImportDeps } from './imports'
 import { createInvitation } from '../mail/invitations'
 import {
+  deleteProject,
+  listDeletedProjects,
+  purgeProject,
+  restoreProject,
+} from '../services/project-bin'
+import {
   changeMember,
   collarConvergence,
   createProject,
@@ -37,8 +43,29 @@ export function projectsRouter(db: Db): Router {
       .status(201)
       .json({ data: { ...(await createProject(db, req.user!.id, body)), role: 'lead' } })
   })
+  // Deleted projects (the bin): their leads and administrators restore them for 30 days;
+  // administrators purge them. Someone else asking about one learns nothing (404).
+  router.get('/bin', async (req, res) => {
+    res.json({ data: await listDeletedProjects(db, req.user!) })
+  })
+  router.post('/bin/:projectId/restore', validate({ params: BinParams }), async (req, res) => {
+    const { params } = inputOf(res, { params: BinParams })
+    res.json({ data: await restoreProject(db, req.user!, params.projectId) })
+  })
+  router.delete(
+    '/bin/:projectId',
+    requireAdmin,
+    validate({ params: BinParams }),
+    async (req, res) => {
+      const { params } = inputOf(res, { params: BinParams })
+      await purgeProject(db, req.user!, params.projectId)
+      res.status(204).end()
+    },
+  )
   return router
 }
+
+const BinParams = IdParam('projectId')
 
 const MemberParams = IdParam('userId')
 
@@ -69,6 +96,10 @@ export function projectRouter(deps: ImportDeps): Router {
       res.json({ data: { ...after, role, collarConvergence: await collarConvergence(db, after) } })
     },
   )
+  router.delete('/', requireAdmin, async (req, res) => {
+    await deleteProject(db, req.user!.id, projectLocals(res).project)
+    res.status(204).end()
+  })
   router.get('/members', async (_req, res) => {
     res.json({ data: await listMembers(db, projectLocals(res).project.id) })
   })

@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm'
+import { and, eq, isNull } from 'drizzle-orm'
 import {
   holes,
   memberships,
@@ -27,14 +27,18 @@ import {
 
 export async function listProjectsFor(db: Db, user: Express.User) {
   if (user.isAdmin) {
-    const rows = await db.select().from(projects).orderBy(projects.code)
+    const rows = await db
+      .select()
+      .from(projects)
+      .where(isNull(projects.deletedAt))
+      .orderBy(projects.code)
     return rows.map((p) => ({ ...p, role: 'lead' as ProjectRole }))
   }
   const rows = await db
     .select({ project: projects, role: memberships.role })
     .from(memberships)
     .innerJoin(projects, eq(projects.id, memberships.projectId))
-    .where(eq(memberships.userId, user.id))
+    .where(and(eq(memberships.userId, user.id), isNull(projects.deletedAt)))
     .orderBy(projects.code)
   return rows.map((r) => ({ ...r.project, role: r.role }))
 }
