@@ -4,6 +4,7 @@ import { loadEnv } from './env'
 import { createLogger } from './logger'
 import { startJobQueue } from './jobs/queue'
 import { importCommitJob, packBuildJob } from './jobs/handlers'
+import { startSweeper } from './services/leases'
 
 const env = loadEnv()
 const logger = createLogger(env.LOG_LEVEL)
@@ -17,6 +18,8 @@ const jobs = await startJobQueue(
   logger,
 )
 const app = createApp({ db, pool, env, logger, jobs })
+// Work that lost its server (a crash, a kill) shows as failed — interrupted within a minute.
+const stopSweeper = startSweeper(db, (err) => logger.warn({ err }, 'interrupted-work sweep failed'))
 
 const server = app.listen(env.PORT, env.HOST, () => {
   const url = `http://${env.HOST}:${env.PORT}`
@@ -34,6 +37,7 @@ function shutdown(signal: string) {
   if (stopping) return
   stopping = true
   logger.info({ signal }, 'stopping')
+  stopSweeper()
   server.close(() => {
     jobs
       .stop()

@@ -18,6 +18,7 @@ export function importCommitJob(db: Db, pool: pg.Pool, logger: Logger): JobHandl
         fromJob: true,
         actorId: Number(data.actorId),
         confirmDuplicate: data.confirmDuplicate === true,
+        attempt: typeof data.attempt === 'string' ? data.attempt : undefined,
       })
     } catch (err: unknown) {
       if (err instanceof ApiError) {

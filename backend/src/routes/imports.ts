@@ -106,9 +106,10 @@ export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Ro
       if (jobs && found.rowCount > BACKGROUND_ROWS) {
         // Refused before queueing so the caller hears it now; the job checks again.
         if (found.status === 'previewed') await assertNotDuplicate(db, found, confirmDuplicate)
-        await queueImport(db, found.id)
+        const attempt = await queueImport(db, found.id)
         await jobs.send('import-commit', {
           importId: found.id,
+          attempt,
           actorId: req.user!.id,
           confirmDuplicate,
         })

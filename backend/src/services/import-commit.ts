@@ -2,7 +2,7 @@ import { and, eq, inArray } from 'drizzle-orm'
 import { drizzle } from 'drizzle-orm/node-postgres'
 import type pg from 'pg'
 import * as schema from '../../../schema/index'
-import { holes, imports, projects, type Import } from '../../../schema/index'
+import { holes, imports, projects } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { conflict } from '../http/errors'
 import { analyseCsv, type CsvImportKind } from '../imports/analyse'
@@ -11,26 +11,44 @@ import { assertNotFrozen, demoteChecked, noticeDemoted, type Demoted } from './f
 import { applyImport } from './import-apply'
 import { assertNotDuplicate, intervalsReached, isFrozen, reachOf } from './import-guards'
 import { rowErrorsFail, type StoredSettings } from './imports'
+import { holdLease, leaseEnd, leaseFree, newAttempt } from './leases'
 
-/** Moves an import from a waiting state to `committing`; only one caller can win. */
-async function claim(db: Db, id: string, states: Import['status'][]): Promise<Import | undefined> {
+/**
+ * Moves an import to `committing` under a fresh lease; only one caller can win. A request takes a
+ * previewed import, or one whose commit failed (an interrupted one too), as a new attempt; a job
+ * takes only the attempt it was queued with, so a stale retry never commits what a person has
+ * since committed again.
+ */
+async function claim(db: Db, id: string, fromJob: boolean, jobAttempt?: string) {
+  const attempt = fromJob && jobAttempt ? jobAttempt : newAttempt()
   const [row] = await db
     .update(imports)
-    .set({ status: 'committing', progress: 0, message: '' })
-    .where(and(eq(imports.id, id), inArray(imports.status, states)))
+    .set({ status: 'committing', progress: 0, message: '', attempt, leaseUntil: leaseEnd() })
+    .where(
+      fromJob
+        ? and(
+            eq(imports.id, id),
+            inArray(imports.status, ['queued', 'committing', 'failed']),
+            jobAttempt ? eq(imports.attempt, jobAttempt) : undefined,
+            leaseFree(imports),
+          )
+        : and(eq(imports.id, id), inArray(imports.status, ['previewed', 'failed'])),
+    )
     .returning()
-  return row
+  return row ? { row, attempt } : undefined
 }
 
-/** Marks the import as waiting for a worker. */
-export async function queueImport(db: Db, id: string): Promise<void> {
+/** Marks the import as waiting for a worker; the job it is handed carries the returned attempt. */
+export async function queueImport(db: Db, id: string): Promise<string> {
+  const attempt = newAttempt()
   const [row] = await db
     .update(imports)
-    .set({ status: 'queued', message: 'waiting for a worker' })
-    .where(and(eq(imports.id, id), eq(imports.status, 'previewed')))
+    .set({ status: 'queued', message: 'waiting for a worker', attempt, leaseUntil: null })
+    .where(and(eq(imports.id, id), inArray(imports.status, ['previewed', 'failed'])))
     .returning({ id: imports.id })
   if (!row)
     throw conflict('This import is already committed or being committed.', 'import_not_pending')
+  return attempt
 }
 
 export interface CommitOptions {
@@ -38,6 +56,8 @@ export interface CommitOptions {
   actorId: number
   /** The caller saw that the same file was committed here before and commits it again anyway. */
   confirmDuplicate?: boolean
+  /** The attempt a queued job was handed (see queueImport). */
+  attempt?: string
 }
 
 const REASON = 'an import changed rows inside it'
@@ -51,13 +71,11 @@ const REASON = 'an import changed rows inside it'
  * request, which sees the error itself).
  */
 export async function commitImport(db: Db, pool: pg.Pool, id: string, opts: CommitOptions) {
-  const claimed = await claim(
-    db,
-    id,
-    opts.fromJob ? ['queued', 'committing', 'failed'] : ['previewed'],
-  )
-  if (!claimed)
+  const won = await claim(db, id, opts.fromJob, opts.attempt)
+  if (!won)
     throw conflict('This import is already committed or being committed.', 'import_not_pending')
+  const { row: claimed, attempt } = won
+  const releaseLease = holdLease(db, imports, id, attempt)
   const client = await pool.connect()
   const tx = drizzle(client, { schema })
   let demoted: Demoted[] = []
@@ -82,7 +100,8 @@ export async function commitImport(db: Db, pool: pg.Pool, id: string, opts: Comm
     const checked = reached.filter((i) => i.status === 'checked').map((i) => i.id)
     demoted = await demoteChecked(tx, userId, project.id, hole.id, { intervalIds: checked }, REASON)
     const replaced = await applyImport({ db, tx, client, project, hole, importId: id, userId }, a)
-    await tx
+    // Only this attempt may finish: if its lease lapsed and the sweep took the row, roll back.
+    const [mine] = await tx
       .update(imports)
       .set({
         status: 'committed',
@@ -90,8 +109,18 @@ export async function commitImport(db: Db, pool: pg.Pool, id: string, opts: Comm
         committedAt: new Date(),
         message: '',
         replaced: replaced ?? null,
+        attempt: null,
+        leaseUntil: null,
       })
-      .where(eq(imports.id, id))
+      .where(
+        and(eq(imports.id, id), eq(imports.attempt, attempt), eq(imports.status, 'committing')),
+      )
+      .returning({ id: imports.id })
+    if (!mine)
+      throw conflict(
+        'This commit was interrupted and taken over: nothing was stored.',
+        'import_interrupted',
+      )
     await audit(tx, {
       projectId: project.id,
       userId,
@@ -116,10 +145,15 @@ export async function commitImport(db: Db, pool: pg.Pool, id: string, opts: Comm
     const message = err instanceof Error ? err.message : String(err)
     await db
       .update(imports)
-      .set(opts.fromJob ? { status: 'failed', message } : { status: 'previewed', message })
-      .where(eq(imports.id, id))
+      .set({
+        ...(opts.fromJob ? { status: 'failed' as const } : { status: 'previewed' as const }),
+        message,
+        leaseUntil: null,
+      })
+      .where(and(eq(imports.id, id), eq(imports.attempt, attempt)))
     throw err
   } finally {
+    releaseLease()
     client.release()
     // After the commit only: a checker is never told of a change that was rolled back.
     if (told) await noticeDemoted(db, told.projectId, told.hole, demoted, REASON)

@@ -1,5 +1,5 @@
 import { computed, onBeforeUnmount, ref } from 'vue'
-import { getImport, listImports, undoImport } from '../api/imports'
+import { commitImport, getImport, listImports, undoImport } from '../api/imports'
 import type { ImportRecord, ImportUndone } from '../api/types'
 import { describeError } from '../components/format'
 import { isRunning } from './use-import-progress'
@@ -76,6 +76,19 @@ export function useImportHistory(projectId: () => string, holeId: () => string) 
     }
   }
 
+  /** Runs a failed (or interrupted) commit again; the list then follows it as any other. */
+  async function recommit(record: ImportRecord) {
+    error.value = null
+    try {
+      const next = await commitImport(projectId(), holeId(), record.id)
+      records.value = records.value.map((r) => (r.id === next.id ? next : r))
+      if (!isRunning(next)) finished?.(next)
+      await load()
+    } catch (err: unknown) {
+      error.value = describeError(err, 'The import could not be committed.')
+    }
+  }
+
   onBeforeUnmount(() => clearTimeout(timer))
-  return { records, loading, error, running, undoing, undone, load, onFinished, undo }
+  return { records, loading, error, running, undoing, undone, load, onFinished, undo, recommit }
 }
