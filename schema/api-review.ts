@@ -1,10 +1,12 @@
 /** Request schemas for domains, intervals and sets (the engineer's review). */
 import { z } from 'zod'
 import { structureSources, structureTypes } from './vocabulary'
+import { analysisWeightings, contourMethods } from './intervals'
 
 const depth = z.number().min(0).max(5000)
 const version = z.number().int().positive()
 const azimuth = z.number().min(0).max(360)
+const limit = z.number().min(0).max(90)
 
 export const DomainBody = z
   .object({ name: z.string().trim().min(1).max(60), description: z.string().max(500).optional() })
@@ -18,6 +20,10 @@ const intervalFields = {
   faceDip: z.number().min(0).max(90).nullable(),
   faceDipDirection: azimuth.nullable(),
   frictionDeg: z.number().min(0).max(89).nullable(),
+  weighting: z.enum(analysisWeightings),
+  contourMethod: z.enum(contourMethods),
+  lateralLimitDeg: limit,
+  topplingLimitDeg: limit,
 }
 const ordered = (i: { fromDepth?: number; toDepth?: number }) =>
   i.fromDepth === undefined || i.toDepth === undefined || i.toDepth > i.fromDepth
@@ -29,6 +35,10 @@ export const IntervalCreateBody = z
     faceDip: intervalFields.faceDip.optional(),
     faceDipDirection: intervalFields.faceDipDirection.optional(),
     frictionDeg: intervalFields.frictionDeg.optional(),
+    weighting: intervalFields.weighting.optional(),
+    contourMethod: intervalFields.contourMethod.optional(),
+    lateralLimitDeg: limit.optional(),
+    topplingLimitDeg: limit.optional(),
   })
   .strict()
   .refine(ordered, { path: ['toDepth'], message: 'must be greater than fromDepth' })
@@ -51,13 +61,25 @@ const list = <T extends readonly [string, ...string[]]>(values: T) =>
     .pipe(z.array(z.enum(values)))
     .optional()
 
+/** A number in a query string; an empty value is refused, never read as 0. */
+const queryNumber = (min: number, max: number) =>
+  z.string().trim().min(1).transform(Number).pipe(z.number().min(min).max(max)).optional()
+
+/**
+ * The analysis route's query. Every setting left out is the interval's saved one, so the route
+ * without a query answers what the design pack prints; a setting given overrides it for exploring.
+ */
 export const AnalysisQuery = z
   .object({
-    weighting: z.enum(['terzaghi', 'none']).default('none'),
     types: list(structureTypes),
     sources: list(structureSources),
-    lateralLimit: z.coerce.number().min(0).max(90).default(20),
-    topplingLimit: z.coerce.number().min(0).max(90).default(30),
+    weighting: z.enum(analysisWeightings).optional(),
+    contourMethod: z.enum(contourMethods).optional(),
+    faceDip: queryNumber(0, 90),
+    faceDipDirection: queryNumber(0, 360),
+    frictionDeg: queryNumber(0, 89),
+    lateralLimitDeg: queryNumber(0, 90),
+    topplingLimitDeg: queryNumber(0, 90),
   })
   .strict()
 

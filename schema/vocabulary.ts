@@ -64,3 +64,39 @@ export const weatheringGrades = [
 ] as const
 export const structureStates = ['open', 'closed', 'healed'] as const
 export const confidences = ['high', 'medium', 'low'] as const
+
+/**
+ * Set colours, one palette for the screen's nets and tables and the design pack's nets: Downdip's
+ * own, mid-tone so they read on the light and the dark panel alike, distinct from the accent used
+ * for contours. The n-th set of an interval (in the analysis order) takes setColour(n).
+ */
+export const setPalette = [
+  '#d0602c', // kiln orange
+  '#2f79b5', // slate blue
+  '#8e58b3', // heather
+  '#3a965b', // moss
+  '#c23f78', // berry
+  '#a8851a', // ochre
+  '#3f9ea4', // tarn
+  '#7b6f5a', // flint
+] as const
+
+/** Poles outside every set. */
+export const unassignedSetColour = '#8a93a0'
+
+/** The colour of the set at `index` (repeating past the palette); a negative index is no set. */
+export function setColour(index: number): string {
+  return index < 0 ? unassignedSetColour : setPalette[index % setPalette.length]
+}
+
+/** An interval's analysis settings: saved with it, frozen from approval on, used by its pack. */
+export const analysisSettingKeys = [
+  'weighting',
+  'contourMethod',
+  'faceDip',
+  'faceDipDirection',
+  'frictionDeg',
+  'lateralLimitDeg',
+  'topplingLimitDeg',
+] as const
+export type AnalysisSettingKey = (typeof analysisSettingKeys)[number]

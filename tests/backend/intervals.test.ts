@@ -98,7 +98,8 @@ describe('intervals', () => {
     expect(suggest.body.data.k).toBe(2)
     expect((await logger.post(`${url}/sets/cluster`, { k: 2 })).status).toBe(403)
     expect((await engineer.post(`${url}/sets/cluster`, { k: 2 })).status).toBe(200)
-    const a = (await logger.get(`${url}/analysis`)).body.data
+    // Unweighted, to compare with orient's plain Fisher statistics (the saved default is Terzaghi).
+    const a = (await logger.get(`${url}/analysis?weighting=none`)).body.data
     expect(a.interval).toMatchObject({ name: 'upper', domainName: null })
     // the first plane of the second set jumps in beta against the last of the first (same type, same run)
     expect(a.counts).toEqual({ total: 8, oriented: 8, unoriented: 0, flagged: 1 })

@@ -1,15 +1,16 @@
 import { describe, expect, it } from 'vitest'
 import { eq } from 'drizzle-orm'
-import Papa from 'papaparse'
 import { intervals, projects, structures } from '../../schema/index'
 import { analyseInterval } from '../../backend/src/services/analysis'
 import { validateAgs } from '../../backend/src/exports/ags4-validate'
-import { loadPackData, PACK_ANALYSIS } from '../../backend/src/exports/pack-data'
+import { loadPackData } from '../../backend/src/exports/pack-data'
 import { buildReport } from '../../backend/src/exports/pdf-report'
 import { packSuite } from './pack-setup'
+import { agsGroup, parseCsv, pdfText } from './pack-text'
 
 const { ctx, url, waitFor, fileText } = packSuite()
 const as = ctx.as
+const stamp = /\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC/
 
 describe('POST /api/projects/:projectId/packs', () => {
   it('POST /packs → 401 signed out, 404 non-member, 403 viewer/logger/engineer, 400 foreign ids', async () => {
@@ -33,16 +34,24 @@ describe('a whole-project pack', () => {
     id = res.body.data.id
     const pack = await waitFor(as.lead!, id)
     expect(pack).toMatchObject({ status: 'ready', progress: 100, createdByName: 'lead' })
+    expect(pack.draft).toBe(false)
     expect(pack.inputsHash).toMatch(/^[0-9a-f]{64}$/)
-    expect(pack.files.map((f: { name: string }) => f.name)).toEqual([
-      'intersections.csv',
-      `net-${ctx.intervalId}.png`,
-      `net-${ctx.intervalId}.svg`,
-      'project.ags',
-      'report.pdf',
-      'sets.csv',
-      'structures.csv',
-    ])
+    expect(pack.files.map((f: { name: string }) => f.name).sort()).toEqual(
+      [
+        'intersections.csv',
+        ...[ctx.intervalId, ctx.lowerId].flatMap((i) => [`net-${i}.png`, `net-${i}.svg`]),
+        'project.ags',
+        'report.pdf',
+        'sets.csv',
+        'structures.csv',
+      ].sort(),
+    )
+    expect(pack.intervals.map((i: { name: string; status: string }) => [i.name, i.status])).toEqual(
+      [
+        ['upper', 'approved'],
+        ['lower', 'approved'],
+      ],
+    )
     expect(pack.files.every((f: { size: number }) => f.size > 100)).toBe(true)
   })
 
@@ -55,19 +64,16 @@ describe('a whole-project pack', () => {
     expect((await as.anonymous!.get(url())).status).toBe(401)
   })
 
-  it('sets.csv and intersections.csv carry analyseInterval numbers (Terzaghi-weighted)', async () => {
+  it('sets.csv and intersections.csv carry analyseInterval numbers with the saved settings', async () => {
     const [interval] = await ctx.fx.db
       .select()
       .from(intervals)
       .where(eq(intervals.id, ctx.intervalId))
-    const analysis = await analyseInterval(ctx.fx.db, interval, PACK_ANALYSIS)
+    const analysis = await analyseInterval(ctx.fx.db, interval)
     expect(analysis.sets.map((s) => s.count)).toEqual([3, 3])
-    const csv = Papa.parse<Record<string, string>>(
-      (await fileText(as.engineer!, id, 'sets.csv')).toString(),
-      { header: true, skipEmptyLines: true },
-    )
-    expect(csv.data).toHaveLength(2)
-    csv.data.forEach((row, i) => {
+    const csv = parseCsv((await fileText(as.engineer!, id, 'sets.csv')).toString())
+    expect(csv.data).toHaveLength(5)
+    csv.data.slice(0, 2).forEach((row, i) => {
       const s = analysis.sets[i]
       expect(row).toMatchObject({
         hole: 'TST-01',
@@ -84,22 +90,61 @@ describe('a whole-project pack', () => {
       // RQD: (18 + 12) / 40 over the two runs, weighted by overlap (15 m and 20 m) → 77.1 %
       expect(row.interval_rqd_pct).toBe(((90 * 15 + 60 * 20) / 35).toFixed(1))
     })
-    const x = Papa.parse<Record<string, string>>(
-      (await fileText(as.engineer!, id, 'intersections.csv')).toString(),
-      { header: true, skipEmptyLines: true },
-    )
-    expect(x.data).toEqual([
+    expect(csv.data.map((r) => [r.interval, r.weighting])).toEqual([
+      ['upper', 'terzaghi'],
+      ['upper', 'terzaghi'],
+      ['lower', 'none'],
+      ['lower', 'none'],
+      ['lower', 'none'],
+    ])
+    const x = parseCsv((await fileText(as.engineer!, id, 'intersections.csv')).toString())
+    expect(x.data[0]).toEqual(
       expect.objectContaining({
         set_a: 'J1',
         set_b: 'J2',
         trend_deg: analysis.intersections[0].trend!.toFixed(2),
       }),
-    ])
+    )
+    expect(x.data).toHaveLength(1 + 3)
   })
 
-  it('project.ags passes the validator; DISC rows carry the stored orientations', async () => {
+  it('every CSV starts with a # header naming each interval’s checker and approver with dates', async () => {
+    for (const name of ['structures.csv', 'sets.csv', 'intersections.csv']) {
+      const text = (await fileText(as.engineer!, id, name)).toString()
+      const head = text.split('\r\n').filter((l) => l.startsWith('# '))
+      expect(head[0]).toMatch(new RegExp(`^# Downdip design pack TST ${id.slice(0, 8)}: ${name}`))
+      expect(text.startsWith(head.join('\r\n'))).toBe(true)
+      expect(text).not.toContain('DRAFT')
+      for (const interval of ['upper', 'lower']) {
+        const line = head.find((l) => l.startsWith(`# TST-01 ${interval} `))!
+        expect(line).toMatch(new RegExp(`checked by engineer on ${stamp.source}`))
+        expect(line).toMatch(new RegExp(`approved by lead on ${stamp.source}`))
+      }
+      expect(head.find((l) => l.startsWith('# TST-01 lower'))).toContain(
+        'unweighted Fisher statistics; exponential-kernel contours; face 65/230; friction 28 deg; lateral limit 25 deg; toppling limit 35 deg',
+      )
+    }
+  })
+
+  it('project.ags passes the validator; DINT names checker and approver; DISC rows carry the stored orientations', async () => {
     const ags = (await fileText(as.engineer!, id, 'project.ags')).toString('ascii')
     expect(validateAgs(ags)).toEqual([])
+    expect(agsGroup(ags, 'DINT')).toEqual([
+      expect.objectContaining({
+        DINT_NAME: 'upper',
+        DINT_STAT: 'approved',
+        DINT_CHKB: 'engineer',
+        DINT_APPB: 'lead',
+        DINT_WGHT: 'terzaghi',
+        DINT_CONT: 'kamb',
+        DINT_FDIP: '70.00',
+      }),
+      expect.objectContaining({ DINT_NAME: 'lower', DINT_WGHT: 'none', DINT_LATL: '25.00' }),
+    ])
+    for (const row of agsGroup(ags, 'DINT'))
+      for (const at of [row.DINT_CHKD, row.DINT_APPD])
+        expect(at).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d$/)
+    expect(agsGroup(ags, 'TRAN')[0].TRAN_STAT).toBe('Design pack')
     expect(ags).toContain('"TRAN_AGS"')
     expect(ags).toContain('"4.1.1"')
     expect(ags).toContain('must be checked by a competent person')
@@ -131,7 +176,8 @@ describe('a whole-project pack', () => {
   it('report.pdf has a cover, an interval page and a depth view; the SVG net is drawn', async () => {
     const pdf = (await fileText(as.engineer!, id, 'report.pdf')).toString('latin1')
     expect(pdf.startsWith('%PDF-')).toBe(true)
-    expect(pdf.match(/\/Type \/Page\b/g)).toHaveLength(3)
+    // Cover, a page per interval, a depth view of the one hole.
+    expect(pdf.match(/\/Type \/Page\b/g)).toHaveLength(4)
     const svg = (await fileText(as.engineer!, id, `net-${ctx.intervalId}.svg`)).toString()
     expect(svg.match(/<circle [^>]*r="2.5"/g)).toHaveLength(7)
     const png = await fileText(as.engineer!, id, `net-${ctx.intervalId}.png`)
@@ -155,17 +201,16 @@ describe('buildReport()', () => {
       font: 'helvetica',
       compress: false,
     })
-    // Standard-font text is written as hex strings inside TJ arrays: decode and join each array.
-    const text = [...pdf.toString('latin1').matchAll(/\[([^\]]*)\] TJ/g)].map((m) =>
-      [...m[1].matchAll(/<([0-9a-f]*)>/g)]
-        .map((h) => Buffer.from(h[1], 'hex').toString('latin1'))
-        .join(''),
-    )
+    const text = pdfText(pdf).flat()
     const mean = data.intervals[0].analysis.sets[0].mean!
     expect(text).toContain(mean.dip.toFixed(1))
     expect(text).toContain(mean.dipDirection.toFixed(1))
     expect(text).toContain('Design pack')
     expect(text.join(' ')).toContain('Kinematic screening is not a stability analysis')
     expect(text).toContain('J1 / J2')
+    expect(text).toContain('Sign-off')
+    expect(text.filter((t) => /^engineer, \d{4}-\d\d-\d\d \d\d:\d\d UTC$/.test(t))).toHaveLength(2)
+    expect(text.filter((t) => /^lead, \d{4}-\d\d-\d\d \d\d:\d\d UTC$/.test(t))).toHaveLength(2)
+    expect(text.join(' ')).not.toContain('DRAFT')
   })
 })

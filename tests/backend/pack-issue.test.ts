@@ -39,18 +39,25 @@ describe('a built pack: downloads and issue', () => {
       for (const call of routes.slice(1, 4)) expect((await call(as[who]!)).status).toBe(403)
   })
 
-  it('POST /:packId/issue → 403 engineer; lead freezes it and marks intervals issued; then 409', async () => {
+  it('POST /:packId/issue → 403 engineer; lead freezes it and marks its approved intervals issued; then 409', async () => {
     expect((await as.engineer!.post(`${url()}/${id}/issue`)).status).toBe(403)
     expect((await as.logger!.post(`${url()}/${id}/issue`)).status).toBe(403)
     const res = await as.lead!.post(`${url()}/${id}/issue`)
     expect(res.status).toBe(200)
     expect(res.body.data).toMatchObject({ status: 'issued', issuedByName: 'lead' })
     expect(res.body.data.contentHash).toBe(contentHashOf(res.body.data.files))
-    const [interval] = await ctx.fx.db
+    const rows = await ctx.fx.db
       .select()
       .from(intervals)
-      .where(eq(intervals.id, ctx.intervalId))
-    expect(interval.status).toBe('issued')
+      .where(eq(intervals.holeId, ctx.fx.holeId))
+      .orderBy(intervals.fromDepth)
+    expect(rows.map((i) => [i.name, i.status])).toEqual([
+      ['upper', 'issued'],
+      ['lower', 'issued'],
+    ])
+    // Issuing keeps the sign-off: who checked and who approved.
+    expect(rows.every((i) => i.checkedBy === ctx.fx.userIds.engineer)).toBe(true)
+    expect(rows.every((i) => i.approvedBy === ctx.fx.userIds.lead)).toBe(true)
     for (const again of [
       as.lead!.post(`${url()}/${id}/issue`),
       as.lead!.delete(`${url()}/${id}`),
@@ -84,13 +91,14 @@ describe('DELETE /api/projects/:projectId/packs/:packId', () => {
       p.files.find((f: { name: string }) => f.name === name).sha256
     expect(sha(again, 'structures.csv')).toBe(sha(pack, 'structures.csv'))
     expect(again.inputsHash).toBe(pack.inputsHash)
-    // New data after the build: issuing would freeze a stale pack.
-    await as.logger!.post(`${holeUrl()}/structures`, {
-      depth: 60,
+    // New data after the build (below every interval): issuing would freeze a stale pack.
+    const vein = await as.logger!.post(`${holeUrl()}/structures`, {
+      depth: 90,
       type: 'vein',
       alpha: 70,
       beta: 20,
     })
+    expect(vein.status).toBe(201)
     const stale = await as.lead!.post(`${url()}/${pack.id}/issue`)
     expect(stale.status).toBe(409)
     expect(stale.body.error.code).toBe('pack_stale')

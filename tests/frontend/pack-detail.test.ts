@@ -12,6 +12,7 @@ const pack: PackDetail = {
   id: '4234f911-1c8c-47e3-b10d-ced7ee38f595',
   projectId: 1,
   status: 'ready',
+  draft: false,
   selection: {},
   progress: 100,
   message: 'Ready: 2 files',
@@ -27,6 +28,7 @@ const pack: PackDetail = {
     { name: 'report.pdf', mime: 'application/pdf', size: 21532, sha256: 'b'.repeat(64) },
     { name: 'sets.csv', mime: 'text/csv', size: 512, sha256: 'c'.repeat(64) },
   ],
+  intervals: [{ id: 11, holeId: 7, holeName: 'GSQ-BH01', name: 'upper', status: 'approved' }],
 }
 
 afterEach(() => {
@@ -74,6 +76,44 @@ describe('PacksDetail', () => {
     await flushPromises()
     expect(wrapper.emitted('issue')).toHaveLength(1)
     wrapper.unmount()
+  })
+})
+
+describe('PacksDetail of a pack that cannot be issued', () => {
+  it('PacksDetail of a draft pack → DRAFT tag, no Issue button, the reason in words', () => {
+    const draft: PackDetail = {
+      ...pack,
+      draft: true,
+      message: 'Draft preview: 2 files',
+      intervals: [
+        ...pack.intervals,
+        { id: 12, holeId: 7, holeName: 'GSQ-BH01', name: 'lower', status: 'checked' },
+      ],
+    }
+    const wrapper = mount(PacksDetail, {
+      props: { projectId: '1', pack: draft, isLead: true, canDownload: true, busy: false },
+      ...withPrimeVue,
+    })
+    expect(wrapper.get('[data-testid="pack-draft-tag"]').text()).toBe('DRAFT — not for design')
+    expect(wrapper.find('[data-testid="pack-issue"]').exists()).toBe(false)
+    expect(wrapper.get('[data-testid="pack-issue-blocked"]').text()).toContain('draft pack')
+    expect(wrapper.get('[data-testid="pack-intervals"]').text()).toContain('lower · checked')
+  })
+
+  it('PacksDetail of a ready pack whose interval was reopened → no Issue button, names it', () => {
+    const reopened: PackDetail = {
+      ...pack,
+      intervals: [{ ...pack.intervals[0], status: 'draft' }],
+    }
+    const wrapper = mount(PacksDetail, {
+      props: { projectId: '1', pack: reopened, isLead: true, canDownload: true, busy: false },
+      ...withPrimeVue,
+    })
+    expect(wrapper.find('[data-testid="pack-draft-tag"]').exists()).toBe(false)
+    expect(wrapper.find('[data-testid="pack-issue"]').exists()).toBe(false)
+    expect(wrapper.get('[data-testid="pack-issue-blocked"]').text()).toBe(
+      'Not issuable: GSQ-BH01 upper is draft.',
+    )
   })
 })
 

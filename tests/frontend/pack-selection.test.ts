@@ -8,13 +8,19 @@ import { mockFetch } from './fetch-mock'
 import { withPrimeVue } from './mount-options'
 
 const hole = { id: 7, name: 'GSQ-BH01' } as Hole
-const interval = (id: number, name: string, fromDepth: number, toDepth: number) => ({
+const interval = (
+  id: number,
+  name: string,
+  fromDepth: number,
+  toDepth: number,
+  status = 'approved',
+) => ({
   id,
   holeId: 7,
   name,
   fromDepth,
   toDepth,
-  status: 'approved',
+  status,
 })
 
 afterEach(() => vi.unstubAllGlobals())
@@ -51,12 +57,37 @@ describe('PacksSelection', () => {
   })
 })
 
+describe('PacksSelection with intervals not approved', () => {
+  it('PacksSelection warns that a selection holding a checked interval builds a draft', async () => {
+    mockFetch(() => ({
+      body: { data: [interval(11, 'upper', 0, 40), interval(12, 'lower', 40, 90, 'checked')] },
+    }))
+    const wrapper = mount(PacksSelection, {
+      props: { projectId: '1', holes: [hole], busy: false },
+      ...withPrimeVue,
+    })
+    await flushPromises()
+    // The whole project holds the checked interval.
+    expect(wrapper.get('[data-testid="pack-draft-note"]').text()).toContain(
+      'Not approved: GSQ-BH01 lower (checked)',
+    )
+    await wrapper.get('#pack-whole').setValue(false)
+    await wrapper.get('#pack-interval-11').setValue(true)
+    expect(wrapper.find('[data-testid="pack-draft-note"]').exists()).toBe(false)
+    await wrapper.get('#pack-interval-12').setValue(true)
+    expect(wrapper.get('[data-testid="pack-draft-note"]').text()).toContain(
+      'DRAFT — not for design',
+    )
+  })
+})
+
 describe('PacksTable', () => {
   it('PacksTable shows progress for a building pack and who issued an issued one', () => {
     const base: PackSummary = {
       id: 'a',
       projectId: 1,
       status: 'building',
+      draft: false,
       selection: {},
       progress: 40,
       message: 'Writing files',
@@ -80,5 +111,35 @@ describe('PacksTable', () => {
     expect(rows[0].find('[role="progressbar"]').attributes('aria-valuenow')).toBe('40')
     expect(rows[1].text()).toContain('issued')
     expect(rows[1].text()).toContain('Lead Greyscar ·')
+    expect(rows[0].find('[data-testid="pack-row-draft"]').exists()).toBe(false)
+  })
+
+  it('PacksTable tags a draft pack DRAFT', () => {
+    const wrapper = mount(PacksTable, {
+      props: {
+        packs: [
+          {
+            id: 'c',
+            projectId: 1,
+            status: 'ready',
+            draft: true,
+            selection: {},
+            progress: 100,
+            message: 'Draft preview: 9 files',
+            inputsHash: null,
+            contentHash: null,
+            createdAt: '2026-12-01T10:00:00Z',
+            createdBy: 2,
+            createdByName: 'Lead Greyscar',
+            issuedAt: null,
+            issuedBy: null,
+            issuedByName: null,
+          },
+        ],
+        selectedId: null,
+      },
+      ...withPrimeVue,
+    })
+    expect(wrapper.get('[data-testid="pack-row-draft"]').text()).toBe('DRAFT')
   })
 })

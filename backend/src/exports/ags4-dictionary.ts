@@ -137,9 +137,9 @@ export const agsGroups: Record<string, AgsHeading[]> = {
     u('DSET_INTV', 'X', '', 'Interval name'),
     u('DSET_DOMN', 'X', '', 'Geotechnical domain'),
     u('DSET_NRAW', '0DP', '', 'Number of oriented members'),
-    u('DSET_NWGT', '1DP', '', 'Terzaghi-weighted number of members'),
+    u('DSET_NWGT', '1DP', '', 'Weighted number of members (weighting as DINT_WGHT)'),
     u('DSET_PCT', '1DP', '%', 'Members as % of oriented data in the interval'),
-    u('DSET_DIP', '2DP', 'deg', 'Mean dip (Terzaghi-weighted Fisher mean)'),
+    u('DSET_DIP', '2DP', 'deg', 'Mean dip (Fisher mean, weighting as DINT_WGHT)'),
     u('DSET_DIR', '2DP', 'deg', 'Mean dip direction'),
     u('DSET_FK', '1DP', '', 'Fisher concentration K'),
     u('DSET_A95', '2DP', 'deg', 'Fisher alpha95 cone of confidence'),
@@ -149,11 +149,35 @@ export const agsGroups: Record<string, AgsHeading[]> = {
     u('DSET_RQD', '1DP', '%', 'Interval RQD, length-weighted over core runs'),
     u('DSET_FI', '2DP', '1/m', 'Interval natural fracture frequency'),
   ],
+  DINT: [
+    u('LOCA_ID', 'ID', '', 'Location identifier', 'KEY'),
+    u('DINT_TOP', '2DP', 'm', 'Top of the interval', 'KEY'),
+    u('DINT_BASE', '2DP', 'm', 'Base of the interval', 'KEY'),
+    u('DINT_NAME', 'X', '', 'Interval name'),
+    u('DINT_STAT', 'X', '', 'Review status when the pack was built'),
+    u('DINT_CHKB', 'X', '', 'Checked by'),
+    u('DINT_CHKD', 'DT', 'yyyy-mm-ddThh:mm', 'Checked at (UTC)'),
+    u('DINT_APPB', 'X', '', 'Approved by'),
+    u('DINT_APPD', 'DT', 'yyyy-mm-ddThh:mm', 'Approved at (UTC)'),
+    u('DINT_WGHT', 'X', '', 'Weighting of the set statistics (terzaghi or none)'),
+    u('DINT_CONT', 'X', '', 'Density contour method (kamb or exponential)'),
+    u('DINT_FDIP', '2DP', 'deg', 'Design face dip'),
+    u('DINT_FDIR', '2DP', 'deg', 'Design face dip direction'),
+    u('DINT_FRIC', '2DP', 'deg', 'Friction angle of the kinematic screening'),
+    u('DINT_LATL', '2DP', 'deg', 'Lateral limit of planar and wedge sliding'),
+    u('DINT_TOPL', '2DP', 'deg', 'Limit of flexural toppling'),
+  ],
 }
 
 /** The user-defined group of set summaries (one row per set per interval). */
 export const SET_GROUP = 'DSET'
-export const SET_GROUP_DESCRIPTION = 'Downdip discontinuity set summary per depth interval'
+/** The user-defined group of interval sign-off and analysis settings (one row per interval). */
+export const INTERVAL_GROUP = 'DINT'
+/** Our user-defined groups, with their DICT descriptions. */
+export const userGroups: Record<string, string> = {
+  [SET_GROUP]: 'Downdip discontinuity set summary per depth interval',
+  [INTERVAL_GROUP]: 'Downdip depth interval: sign-off and the analysis settings used',
+}
 
 export const unitDescriptions: Record<string, string> = {
   m: 'metre',
@@ -162,6 +186,7 @@ export const unitDescriptions: Record<string, string> = {
   '%': 'percent',
   '1/m': 'per metre',
   'yyyy-mm-dd': 'date: year-month-day',
+  'yyyy-mm-ddThh:mm': 'date and time (UTC): year-month-day T hour:minute',
 }
 
 export const typeDescriptions: Record<string, string> = {

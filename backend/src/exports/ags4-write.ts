@@ -1,10 +1,4 @@
-import {
-  AGS_EDITION,
-  SET_GROUP,
-  SET_GROUP_DESCRIPTION,
-  typeDescriptions,
-  unitDescriptions,
-} from './ags4-dictionary'
+import { AGS_EDITION, typeDescriptions, unitDescriptions, userGroups } from './ags4-dictionary'
 import { headingsOf, writeAgsTables, type AgsTable } from './ags4-format'
 import {
   coreTable,
@@ -15,8 +9,10 @@ import {
   locaTable,
   setTable,
 } from './ags4-tables'
+import { intervalTable } from './ags4-intervals'
 import type { PackData } from './pack-data'
 import { CAUTIONS } from './cautions'
+import { DRAFT_MARK } from './sign-off'
 
 /** Descriptions of the PA codes we write (ABBR_DESC). */
 const abbrDescriptions: Record<string, Record<string, string>> = {
@@ -33,7 +29,9 @@ export interface AgsMeta {
 
 /**
  * The pack's AGS4 file: project, transmission, the meta groups (UNIT, TYPE, ABBR, DICT) listing
- * every unit, type, code and user-defined heading used, then LOCA, HORN, CORE, DISC, FRAC and DSET.
+ * every unit, type, code and user-defined heading used, then LOCA, HORN, CORE, DISC, FRAC, DSET
+ * and DINT (each interval's sign-off and settings). A draft pack says so in PROJ_MEMO and TRAN_STAT,
+ * the free-text fields every reader shows first.
  */
 export function writeAgs(data: PackData, meta: AgsMeta): string {
   const p = data.project
@@ -44,7 +42,11 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
       {
         PROJ_ID: p.code,
         PROJ_NAME: p.name,
-        PROJ_MEMO: `${CAUTIONS.join(' ')} Set statistics are Terzaghi-weighted.`,
+        PROJ_MEMO: [
+          ...(data.draft ? [`${DRAFT_MARK}: intervals in this file are not all approved.`] : []),
+          ...CAUTIONS,
+          'Each interval is analysed with its own saved settings and signed off as listed in DINT.',
+        ].join(' '),
       },
     ],
   }
@@ -56,7 +58,7 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
         TRAN_ISNO: meta.packId.slice(0, 8),
         TRAN_DATE: meta.generatedAt.toISOString().slice(0, 10),
         TRAN_PROD: 'Downdip',
-        TRAN_STAT: 'Design pack',
+        TRAN_STAT: data.draft ? DRAFT_MARK : 'Design pack',
         TRAN_AGS: AGS_EDITION,
         TRAN_DLIM: '|',
         TRAN_RCON: '+',
@@ -64,9 +66,9 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
     ],
   }
   const body = [locaTable(data), hornTable(data), coreTable(data), discTable(data), fracTable(data)]
-  const sets = setTable(data)
-  const dict = dictTable([...body, sets])
-  const described = [proj, tran, dict, ...body, sets]
+  const sets = [setTable(data), intervalTable(data)]
+  const dict = dictTable([...body, ...sets])
+  const described = [proj, tran, dict, ...body, ...sets]
   const abbr = abbrTable(described)
   const unitsAndTypes = [...described, abbr]
   const unit: AgsTable = {
@@ -85,19 +87,19 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
       .sort()
       .map((x) => ({ TYPE_TYPE: x, TYPE_DESC: typeDescriptions[x] ?? x })),
   }
-  return writeAgsTables([proj, tran, unit, typeTable, abbr, dict, ...body, sets])
+  return writeAgsTables([proj, tran, unit, typeTable, abbr, dict, ...body, ...sets])
 }
 
-/** DICT: our user-defined group and every user-defined heading, with status, type and unit. */
+/** DICT: our user-defined groups and every user-defined heading, with status, type and unit. */
 function dictTable(tables: AgsTable[]): AgsTable {
   const rows: Record<string, string>[] = []
   for (const t of tables) {
-    if (t.name === SET_GROUP)
+    if (userGroups[t.name])
       rows.push({
         DICT_TYPE: 'GROUP',
-        DICT_GRP: SET_GROUP,
+        DICT_GRP: t.name,
         DICT_STAT: 'OTHER',
-        DICT_DESC: SET_GROUP_DESCRIPTION,
+        DICT_DESC: userGroups[t.name],
         DICT_PGRP: 'LOCA',
       })
     for (const h of t.headings.filter((x) => x.user))

@@ -1,24 +1,31 @@
 import Papa from 'papaparse'
+import { setColour } from '../../../schema/vocabulary'
 import type { PackData } from './pack-data'
 
 type Cell = string | number | null | undefined
 const fixed = (x: number | null | undefined, d: number) =>
   x === null || x === undefined || !Number.isFinite(x) ? '' : x.toFixed(d)
 
-/** A plain CSV (header row + data rows, CRLF): cautions live in the PDF and the AGS4 PROJ_MEMO. */
-function toCsv(header: string[], rows: Cell[][]): string {
+/**
+ * A CSV (CRLF) whose first lines are `# ` comments (the pack's header: draft mark, sign-off,
+ * settings, cautions), then the column header row and the data rows; readers that skip `#` lines
+ * (e.g. Papa.parse with `comments: '#'`) see a plain table.
+ */
+function toCsv(header: string[], rows: Cell[][], preamble: readonly string[]): string {
   return (
+    preamble.map((line) => `# ${line}\r\n`).join('') +
     Papa.unparse(
       { fields: header, data: rows.map((r) => r.map((c) => c ?? '')) },
       {
         newline: '\r\n',
       },
-    ) + '\r\n'
+    ) +
+    '\r\n'
   )
 }
 
 /** One row per structure: inputs, conventions, computed orientation, position, weight, set. */
-export function structuresCsv(data: PackData): string {
+export function structuresCsv(data: PackData, preamble: readonly string[] = []): string {
   const holeName = new Map(data.holes.map((h) => [h.id, h.name]))
   const header = [
     'hole',
@@ -85,11 +92,14 @@ export function structuresCsv(data: PackData): string {
       s.id,
     ]
   })
-  return toCsv(header, rows)
+  return toCsv(header, rows, preamble)
 }
 
-/** Per interval set: counts, mean, Fisher statistics, true spacing; the interval's RQD and frequency. */
-export function setsCsv(data: PackData): string {
+/**
+ * Per interval set: counts, mean, Fisher statistics (weighted as the interval's settings say), true
+ * spacing; the interval's RQD and frequency; the set's colour on the nets (the screen's palette).
+ */
+export function setsCsv(data: PackData, preamble: readonly string[] = []): string {
   const header = [
     'hole',
     'interval',
@@ -103,6 +113,8 @@ export function setsCsv(data: PackData): string {
     'percent_of_oriented',
     'mean_dip_deg',
     'mean_dip_direction_deg',
+    'mean_pole_trend_deg',
+    'mean_pole_plunge_deg',
     'fisher_k',
     'alpha95_deg',
     'spherical_variance',
@@ -111,10 +123,11 @@ export function setsCsv(data: PackData): string {
     'isrm_spacing_class',
     'interval_rqd_pct',
     'interval_fracture_frequency_per_m',
+    'set_colour',
   ]
   const rows: Cell[][] = []
   for (const p of data.intervals) {
-    for (const s of p.analysis.sets) {
+    for (const [i, s] of p.analysis.sets.entries()) {
       rows.push([
         p.hole.name,
         p.interval.name,
@@ -124,10 +137,12 @@ export function setsCsv(data: PackData): string {
         s.name,
         s.count,
         fixed(s.weightedCount, 1),
-        'terzaghi',
+        p.settings.weighting,
         fixed(s.percent, 1),
         fixed(s.mean?.dip, 2),
         fixed(s.mean?.dipDirection, 2),
+        fixed(s.meanPole?.trend, 2),
+        fixed(s.meanPole?.plunge, 2),
         fixed(s.kappa, 1),
         fixed(s.alpha95, 2),
         fixed(s.sphericalVariance, 4),
@@ -136,14 +151,15 @@ export function setsCsv(data: PackData): string {
         s.spacing?.isrmClass ?? '',
         fixed(p.runs.rqd, 1),
         fixed(p.runs.frequency, 2),
+        setColour(i),
       ])
     }
   }
-  return toCsv(header, rows)
+  return toCsv(header, rows, preamble)
 }
 
 /** Every set pair of every interval: the line of intersection and the angle between the planes. */
-export function intersectionsCsv(data: PackData): string {
+export function intersectionsCsv(data: PackData, preamble: readonly string[] = []): string {
   const header = [
     'hole',
     'interval',
@@ -164,5 +180,5 @@ export function intersectionsCsv(data: PackData): string {
       fixed(x.angle, 2),
     ]),
   )
-  return toCsv(header, rows)
+  return toCsv(header, rows, preamble)
 }

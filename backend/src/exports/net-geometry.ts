@@ -6,6 +6,7 @@ import {
   type NetPoint,
   type NetProjection,
 } from '../../../orient/index'
+import { setColour } from '../../../schema/vocabulary'
 import type { Analysis } from './pack-data'
 
 /** One interval's net in unit-radius coordinates (x east, y north), from orient's projection. */
@@ -52,6 +53,5 @@ export function netFigure(analysis: Analysis, projection: NetProjection): NetFig
   return { poles, circles, cones, intersections, setNames: analysis.sets.map((s) => s.name) }
 }
 
-/** Set colours of our own (one per set, repeating); unassigned poles are grey. */
-export const setColours = ['#0f766e', '#b45309', '#7c3aed', '#be123c', '#1d4ed8', '#4d7c0f']
-export const colourOf = (i: number) => (i < 0 ? '#8a8f98' : setColours[i % setColours.length])
+/** The screen's set colours (one palette in schema/vocabulary.ts), so a pack's set 1 is the screen's. */
+export const colourOf = setColour

@@ -1,5 +1,6 @@
 import type { NetPoint } from '../../../orient/index'
 import { colourOf, type NetFigure } from './net-geometry'
+import { DRAFT_MARK } from './sign-off'
 
 const R = 200
 const C = 230
@@ -8,8 +9,16 @@ const path = (pts: NetPoint[]) => (pts.length ? `M${pts.map(xy).join('L')}` : ''
 const esc = (s: string) =>
   s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;')
 
-/** A stand-alone SVG of one interval's net (lower hemisphere), drawn from the same geometry as the PDF. */
-export function netSvg(fig: NetFigure, title: string, projectionLabel: string): string {
+/**
+ * A stand-alone SVG of one interval's net (lower hemisphere), drawn from the same geometry as the
+ * PDF; a draft pack's nets carry the draft mark (and so do the PNGs drawn from them).
+ */
+export function netSvg(
+  fig: NetFigure,
+  title: string,
+  projectionLabel: string,
+  draft = false,
+): string {
   const parts: string[] = []
   parts.push(
     `<circle cx="${C}" cy="${C}" r="${R}" fill="#fff" stroke="#222" stroke-width="1.5"/>`,
@@ -46,6 +55,11 @@ export function netSvg(fig: NetFigure, title: string, projectionLabel: string): 
     `<svg xmlns="http://www.w3.org/2000/svg" width="600" height="470" viewBox="0 0 600 470" font-family="Fira Sans, sans-serif">`,
     `<title>${esc(title)}</title>`,
     `<text x="10" y="20" font-size="14">${esc(title)}</text>`,
+    ...(draft
+      ? [
+          `<text x="590" y="20" font-size="14" font-weight="bold" text-anchor="end" fill="#b91c1c">${DRAFT_MARK}</text>`,
+        ]
+      : []),
     `<text x="10" y="460" font-size="11">Lower hemisphere, ${esc(projectionLabel)}; poles, set mean great circles, alpha95 cones, intersections (x)</text>`,
     ...parts,
     '</svg>',

@@ -54,6 +54,7 @@ export async function runPackBuild(db: Db, packId: string): Promise<void> {
       .set({
         selection: { ...selection, packed },
         inputsHash: data.inputsHash,
+        draft: data.draft,
         progress: 30,
         message: 'Data read; writing files',
       })
@@ -70,7 +71,11 @@ export async function runPackBuild(db: Db, packId: string): Promise<void> {
       await tx.insert(packFiles).values(files.map((f) => ({ ...f, packId })))
       await tx
         .update(packs)
-        .set({ status: 'ready', progress: 100, message: `Ready: ${files.length} files` })
+        .set({
+          status: 'ready',
+          progress: 100,
+          message: `${data.draft ? 'Draft preview' : 'Ready'}: ${files.length} files`,
+        })
         .where(eq(packs.id, packId))
     })
   } catch (err: unknown) {

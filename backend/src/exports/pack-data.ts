@@ -1,6 +1,5 @@
 import { and, asc, eq, inArray } from 'drizzle-orm'
 import {
-  AnalysisQuery,
   domains,
   holes,
   intervals,
@@ -17,6 +16,8 @@ import {
 import type { Executor } from '../db/client'
 import { badRequest } from '../http/errors'
 import { analyseInterval } from '../services/analysis'
+import { settingsOf, type AnalysisSettings } from '../services/intervals'
+import { isApproved, signOffsOf, type SignOff } from './sign-off'
 import { listRuns } from '../services/runs'
 import { sha256Hex, canonicalJson } from './hash'
 import { intervalRunSummary, type RunSummary } from './run-summary'
@@ -26,9 +27,6 @@ export interface PackSelection {
   intervalIds?: number[]
 }
 
-/** Set statistics in a pack are always Terzaghi-weighted (stated in every file that shows them). */
-export const PACK_ANALYSIS = AnalysisQuery.parse({ weighting: 'terzaghi' })
-
 export type Analysis = Awaited<ReturnType<typeof analyseInterval>>
 export type RunWithMetrics = Awaited<ReturnType<typeof listRuns>>[number]
 
@@ -37,6 +35,9 @@ export interface PackInterval {
   hole: Hole
   domain: string
   analysis: Analysis
+  /** The interval's saved settings, which its analysis used. */
+  settings: AnalysisSettings
+  signOff: SignOff
   runs: RunSummary
 }
 
@@ -49,6 +50,8 @@ export interface PackData {
   intervals: PackInterval[]
   /** Structure id → its interval and set names (first interval that holds it). */
   assignment: Map<number, { interval: string; intervalId: number; set: string }>
+  /** Some packed interval is not approved: every file says DRAFT and the pack is never issued. */
+  draft: boolean
   inputsHash: string
 }
 
@@ -148,11 +151,13 @@ export async function loadPackData(
         )
         .orderBy(asc(setMembers.setId), asc(setMembers.structureId))
     : []
+  const signOffs = await signOffsOf(db, chosenIntervals)
   const packIntervals: PackInterval[] = []
   const assignment: PackData['assignment'] = new Map()
   for (const interval of chosenIntervals) {
     const hole = chosenHoles.find((h) => h.id === interval.holeId)!
-    const analysis = await analyseInterval(db, interval, PACK_ANALYSIS)
+    // No options: each interval's own saved settings, exactly as GET …/analysis answers.
+    const analysis = await analyseInterval(db, interval)
     const setName = new Map(analysis.sets.map((s) => [s.id, s.name]))
     for (const s of analysis.structures) {
       if (!assignment.has(s.id))
@@ -167,6 +172,8 @@ export async function loadPackData(
       hole,
       domain: domainRows.find((d) => d.id === interval.domainId)?.name ?? '',
       analysis,
+      settings: settingsOf(interval),
+      signOff: signOffs.byInterval.get(interval.id)!,
       runs: intervalRunSummary(runs.get(hole.id) ?? [], interval.fromDepth, interval.toDepth),
     })
   }
@@ -181,7 +188,8 @@ export async function loadPackData(
       domains: domainRows,
       sets: setRows,
       members: memberRows,
-      options: PACK_ANALYSIS,
+      settings: chosenIntervals.map((i) => ({ id: i.id, ...settingsOf(i) })),
+      signers: signOffs.names,
     }),
   )
   return {
@@ -192,6 +200,7 @@ export async function loadPackData(
     structures: packStructures,
     intervals: packIntervals,
     assignment,
+    draft: !chosenIntervals.every(isApproved),
     inputsHash,
   }
 }

@@ -7,6 +7,7 @@ import { netSvg } from './net-svg'
 import { svgToPng } from './net-png'
 import type { PackData } from './pack-data'
 import { buildReport } from './pdf-report'
+import { packHeaderLines } from './sign-off'
 import type { NetProjection } from '../../../orient/index'
 
 export interface PackFile {
@@ -39,10 +40,12 @@ export async function buildPackFiles(
   onProgress: (percent: number, message: string) => Promise<void>,
 ): Promise<PackFile[]> {
   const csv = 'text/csv; charset=utf-8'
+  const csvFile = (name: string, write: typeof setsCsv) =>
+    file(name, csv, Buffer.from(write(data, packHeaderLines(data, meta, name)), 'utf8'))
   const files = [
-    file('structures.csv', csv, Buffer.from(structuresCsv(data), 'utf8')),
-    file('sets.csv', csv, Buffer.from(setsCsv(data), 'utf8')),
-    file('intersections.csv', csv, Buffer.from(intersectionsCsv(data), 'utf8')),
+    csvFile('structures.csv', structuresCsv),
+    csvFile('sets.csv', setsCsv),
+    csvFile('intersections.csv', intersectionsCsv),
   ]
   await onProgress(40, 'CSV written')
   const ags = writeAgs(data, { packId: meta.packId, generatedAt: meta.builtAt })
@@ -59,7 +62,7 @@ export async function buildPackFiles(
   const projection = data.project.netProjection as NetProjection
   for (const p of data.intervals) {
     const title = `${data.project.code} ${p.hole.name} ${p.interval.name} (${p.interval.fromDepth}-${p.interval.toDepth} m)`
-    const svg = netSvg(netFigure(p.analysis, projection), title, projection)
+    const svg = netSvg(netFigure(p.analysis, projection), title, projection, data.draft)
     files.push(file(`net-${p.interval.id}.svg`, 'image/svg+xml', Buffer.from(svg, 'utf8')))
     files.push(file(`net-${p.interval.id}.png`, 'image/png', svgToPng(svg)))
   }

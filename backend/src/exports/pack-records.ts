@@ -1,8 +1,8 @@
-import { and, desc, eq, sql } from 'drizzle-orm'
+import { and, asc, desc, eq, inArray, sql } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/pg-core'
-import { packFiles, packs, users } from '../../../schema/index'
+import { holes, intervals, packFiles, packs, users, type ProjectRole } from '../../../schema/index'
 import type { Db } from '../db/client'
-import { notFound } from '../http/errors'
+import { conflict, forbidden, notFound } from '../http/errors'
 
 const creator = alias(users, 'creator')
 const issuer = alias(users, 'issuer')
@@ -10,6 +10,7 @@ const summary = {
   id: packs.id,
   projectId: packs.projectId,
   status: packs.status,
+  draft: packs.draft,
   selection: packs.selection,
   progress: packs.progress,
   message: packs.message,
@@ -34,7 +35,7 @@ export function listPacks(db: Db, projectId: number) {
     .orderBy(desc(packs.createdAt))
 }
 
-/** One pack with its file list (name, mime, size, sha256). */
+/** One pack with its file list (name, mime, size, sha256) and its packed intervals as they are now. */
 export async function getPack(db: Db, projectId: number, packId: string) {
   const [row] = await db
     .select(summary)
@@ -53,5 +54,45 @@ export async function getPack(db: Db, projectId: number, packId: string) {
     .from(packFiles)
     .where(eq(packFiles.packId, packId))
     .orderBy(packFiles.name)
-  return { ...row, files }
+  const packed = (row.selection as { packed?: { intervalIds?: number[] } }).packed?.intervalIds
+  const packedIntervals = packed?.length
+    ? await db
+        .select({
+          id: intervals.id,
+          holeId: intervals.holeId,
+          holeName: holes.name,
+          name: intervals.name,
+          status: intervals.status,
+        })
+        .from(intervals)
+        .innerJoin(holes, eq(holes.id, intervals.holeId))
+        .where(inArray(intervals.id, packed))
+        .orderBy(asc(holes.name), asc(intervals.fromDepth))
+    : []
+  return { ...row, files, intervals: packedIntervals }
+}
+
+/** A file's bytes. Viewers may read issued packs only; other members any ready or issued pack. */
+export async function packFile(
+  db: Db,
+  projectId: number,
+  role: ProjectRole,
+  packId: string,
+  name: string,
+) {
+  const [pack] = await db
+    .select()
+    .from(packs)
+    .where(and(eq(packs.projectId, projectId), eq(packs.id, packId)))
+  if (!pack) throw notFound('Pack')
+  if (role === 'viewer' && pack.status !== 'issued')
+    throw forbidden('Viewers can download issued packs only.')
+  if (pack.status !== 'ready' && pack.status !== 'issued')
+    throw conflict('The pack is not built yet.', 'pack_not_ready')
+  const [file] = await db
+    .select()
+    .from(packFiles)
+    .where(and(eq(packFiles.packId, packId), eq(packFiles.name, name)))
+  if (!file) throw notFound('File')
+  return file
 }

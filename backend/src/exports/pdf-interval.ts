@@ -2,6 +2,7 @@ import type { NetFigure } from './net-geometry'
 import type { PackData, PackInterval } from './pack-data'
 import { drawNet } from './pdf-net'
 import { CONTENT_WIDTH, drawTable, PAGE, type Column, type Pdf } from './pdf-kit'
+import { settingsText, signOffText } from './sign-off'
 
 const f = (x: number | null | undefined, d: number) =>
   x === null || x === undefined || !Number.isFinite(x) ? '-' : x.toFixed(d)
@@ -56,15 +57,16 @@ export function drawIntervalPage(doc: Pdf, data: PackData, p: PackInterval, fig:
     m,
   )
   doc.font('body').fontSize(9).fillColor('#444')
-  doc.text(`Domain ${p.domain || '-'}; status ${interval.status}; Terzaghi-weighted set statistics`)
-  drawNet(doc, fig, m + 115, m + 165, 105)
+  doc.text(`Domain ${p.domain || '-'}; status ${interval.status}; ${signOffText(p.signOff)}`)
+  doc.fontSize(8).text(`Settings: ${settingsText(p.settings)}`, { width: CONTENT_WIDTH })
+  drawNet(doc, fig, m + 115, m + 178, 105)
   doc.font('body').fontSize(8).fillColor('#111')
-  let y = m + 60
+  let y = m + 72
   for (const line of qualityLines(data, p)) {
     doc.text(line, m + 300, y, { width: CONTENT_WIDTH - 300 })
     y = doc.y + 3
   }
-  y = Math.max(y, m + 290)
+  y = Math.max(y, m + 300)
   doc.font('bold').fontSize(10).text('Sets', m, y)
   y = drawTable(
     doc,

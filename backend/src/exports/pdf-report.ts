@@ -5,6 +5,8 @@ import type { PackData } from './pack-data'
 import { drawDepthView } from './pdf-depth'
 import { createPdf, pdfBytes, PAGE, type Pdf, type PdfFont } from './pdf-kit'
 import { declinationLabel, drawIntervalPage } from './pdf-interval'
+import { drawSignOffTable } from './pdf-sign-off'
+import { DRAFT_MARK } from './sign-off'
 
 export interface ReportMeta {
   packId: string
@@ -26,7 +28,18 @@ export function selectionLabel(data: PackData): string {
 
 function cover(doc: Pdf, data: PackData, meta: ReportMeta) {
   const m = PAGE.margin
-  doc.font('bold').fontSize(22).fillColor('#0f766e').text('Design pack', m, 80)
+  if (data.draft) {
+    doc
+      .rect(m, 52, PAGE.width - 2 * m, 24)
+      .fillColor('#b91c1c')
+      .fill()
+    doc.font('bold').fontSize(12).fillColor('#fff')
+    doc.text(`${DRAFT_MARK}: intervals not approved; a preview, never issued`, m + 10, 58, {
+      width: PAGE.width - 2 * m - 20,
+      lineBreak: false,
+    })
+  }
+  doc.font('bold').fontSize(22).fillColor('#0f766e').text('Design pack', m, 86)
   doc.fontSize(15).fillColor('#111').text(`${data.project.code} - ${data.project.name}`)
   doc.moveDown(1).font('body').fontSize(10)
   const lines: [string, string][] = [
@@ -35,7 +48,10 @@ function cover(doc: Pdf, data: PackData, meta: ReportMeta) {
     ['Built at', `${meta.builtAt.toISOString().replace('T', ' ').slice(0, 19)} UTC`],
     ['Pack', meta.packId],
     ['Inputs SHA-256', data.inputsHash],
-    ['Set statistics', 'Terzaghi-weighted Fisher statistics (weight capped at 10)'],
+    [
+      'Set statistics',
+      'Fisher statistics with the settings saved with each interval (see its page)',
+    ],
     ['Net', `lower hemisphere, ${data.project.netProjection}`],
     ['Declination', declinationLabel(data)],
   ]
@@ -45,7 +61,8 @@ function cover(doc: Pdf, data: PackData, meta: ReportMeta) {
     doc.font('body').text(v, m + 115, y, { width: 400 })
     doc.moveDown(0.3)
   }
-  const y = doc.y + 20
+  doc.moveDown(0.6).font('bold').fontSize(10).fillColor('#111').text('Sign-off', m)
+  const y = drawSignOffTable(doc, data, doc.y + 2) + 10
   doc
     .rect(m, y, PAGE.width - 2 * m, 86)
     .fillColor('#fff7ed')
@@ -64,10 +81,17 @@ function cover(doc: Pdf, data: PackData, meta: ReportMeta) {
   for (const c of CAUTIONS) doc.text(c, m + 10, doc.y + 3, { width: PAGE.width - 2 * m - 20 })
 }
 
-/** The pack's PDF: cover with cautions, a page per interval, a depth view per hole. */
+/**
+ * The pack's PDF: cover with sign-off and cautions, a page per interval, a depth view per hole.
+ * Every page carries the pack in its header and footer, and the draft mark when it is a draft.
+ */
 export async function buildReport(data: PackData, meta: ReportMeta): Promise<Buffer> {
   const title = `Design pack ${data.project.code} ${meta.packId.slice(0, 8)}`
-  const doc = createPdf(title, meta.font ?? 'fira', meta.compress ?? true)
+  const doc = createPdf(
+    data.draft ? `${title} (${DRAFT_MARK})` : title,
+    meta.font ?? 'fira',
+    meta.compress ?? true,
+  )
   cover(doc, data, meta)
   const projection = data.project.netProjection as NetProjection
   for (const p of data.intervals) drawIntervalPage(doc, data, p, netFigure(p.analysis, projection))
@@ -77,9 +101,23 @@ export async function buildReport(data: PackData, meta: ReportMeta): Promise<Buf
     doc.switchToPage(i)
     // Footer below the bottom margin: lift the margin so pdfkit does not start a new page.
     doc.page.margins.bottom = 0
-    doc.font('body').fontSize(7).fillColor('#666')
+    const draft = data.draft ? `${DRAFT_MARK} - ` : ''
+    doc
+      .font('bold')
+      .fontSize(7)
+      .fillColor(data.draft ? '#b91c1c' : '#666')
+    doc.text(`${draft}${title}`, PAGE.margin, 18, {
+      width: PAGE.width - 2 * PAGE.margin,
+      align: 'right',
+      lineBreak: false,
+      height: 10,
+    })
+    doc
+      .font('body')
+      .fontSize(7)
+      .fillColor(data.draft ? '#b91c1c' : '#666')
     doc.text(
-      `${title} - page ${i + 1} of ${range.count} - aids to professional judgement`,
+      `${draft}${title} - page ${i + 1} of ${range.count} - aids to professional judgement`,
       PAGE.margin,
       PAGE.height - 28,
       {

@@ -17,6 +17,7 @@ import {
 } from '../../../schema/index'
 import type { Executor } from '../db/client'
 import { loadIntervalData, type IntervalStructure } from './interval-data'
+import { resolveSettings, type AnalysisSettings } from './intervals'
 
 /** ISRM (1978) spacing classes, millimetres. */
 const spacingClasses: [number, string][] = [
@@ -81,13 +82,20 @@ function spacing(rows: IntervalStructure[], meanPole: Line | undefined, hole: Li
 
 /**
  * An interval's set table, intersections of set means, and kinematic screening against the
- * interval's design face — computed with orient, the numbers the page shows.
+ * interval's design face — computed with orient, the numbers the page shows. Settings come from
+ * the interval unless `options` overrides them; `settings` says which were used and which differ.
  */
-export async function analyseInterval(db: Executor, interval: Interval, options: AnalysisOptions) {
+export async function analyseInterval(
+  db: Executor,
+  interval: Interval,
+  options: AnalysisOptions = {},
+) {
+  const settings = resolveSettings(interval, options)
+  const used = settings.used
   const data = await loadIntervalData(db, interval, options)
   const oriented = data.structures.filter((s) => s.dip !== null && s.poleTrend !== null)
   const weightOf = (s: IntervalStructure) =>
-    options.weighting === 'terzaghi' ? (s.terzaghiWeight ?? 1) : 1
+    used.weighting === 'terzaghi' ? (s.terzaghiWeight ?? 1) : 1
   const bySet = assignSets(data.structures, data.sets, data.members)
   const sets = data.sets.map((set) => {
     const rows = oriented.filter((s) => bySet.get(s.id) === set.id)
@@ -140,6 +148,7 @@ export async function analyseInterval(db: Executor, interval: Interval, options:
     : []
   return {
     interval: { ...interval, domainName: domain?.name ?? null },
+    settings,
     hole: data.hole ? { trend: round(data.hole.trend), plunge: round(data.hole.plunge) } : null,
     counts: {
       total: data.structures.length,
@@ -150,23 +159,21 @@ export async function analyseInterval(db: Executor, interval: Interval, options:
     structures: data.structures.map((s) => ({ ...s, setId: bySet.get(s.id) ?? null })),
     sets: sets.map(({ plane: _p, ...rest }) => rest),
     intersections,
-    kinematics: kinematics(interval, options, oriented, withMeans),
+    kinematics: kinematics(used, oriented, withMeans),
   }
 }
 
 function kinematics(
-  interval: Interval,
-  options: AnalysisOptions,
+  used: AnalysisSettings,
   oriented: IntervalStructure[],
   sets: { id: number; plane?: Plane }[],
 ) {
-  if (interval.faceDip == null || interval.faceDipDirection == null || interval.frictionDeg == null)
-    return null
+  if (used.faceDip == null || used.faceDipDirection == null || used.frictionDeg == null) return null
   const settings = {
-    face: { dip: interval.faceDip, dipDirection: interval.faceDipDirection },
-    friction: interval.frictionDeg,
-    lateralLimit: options.lateralLimit,
-    topplingLimit: options.topplingLimit,
+    face: { dip: used.faceDip, dipDirection: used.faceDipDirection },
+    friction: used.frictionDeg,
+    lateralLimit: used.lateralLimitDeg,
+    topplingLimit: used.topplingLimitDeg,
   }
   // Planar and toppling per structure (no pairs: O(n)); wedges per pair of set means.
   const perStructure = kinematicChecks(

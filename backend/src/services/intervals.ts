@@ -1,17 +1,43 @@
 import { and, asc, eq, gt, lt, ne, sql } from 'drizzle-orm'
 import {
+  analysisSettingKeys,
   domains,
   holes,
   intervals,
   structures,
+  type AnalysisSettingKey,
   type Hole,
   type Interval,
   type IntervalCreate,
   type IntervalUpdate,
 } from '../../../schema/index'
 import type { Db, Executor, Tx } from '../db/client'
-import { ApiError, badRequest, conflict, notFound, staleVersion } from '../http/errors'
+import { ApiError, badRequest, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
+import { assertNotFrozen, demoteChecked, noticeDemoted } from './freeze'
+
+/** The analysis settings an interval holds (what its pack uses and its approval records). */
+export type AnalysisSettings = Pick<Interval, AnalysisSettingKey>
+
+/** An interval's saved analysis settings, e.g. for the approval's audit row. */
+export function settingsOf(interval: Interval): AnalysisSettings {
+  return Object.fromEntries(analysisSettingKeys.map((k) => [k, interval[k]])) as AnalysisSettings
+}
+
+/** The saved settings with the given overrides on top, and which keys the overrides changed. */
+export function resolveSettings(
+  interval: Interval,
+  overrides: Partial<{ [K in AnalysisSettingKey]: AnalysisSettings[K] | undefined }>,
+) {
+  const saved = settingsOf(interval)
+  const used = { ...saved } as Record<AnalysisSettingKey, unknown>
+  for (const k of analysisSettingKeys) if (overrides[k] !== undefined) used[k] = overrides[k]
+  const overridden = analysisSettingKeys.filter((k) => used[k] !== saved[k])
+  return { saved, used: used as AnalysisSettings, overridden }
+}
+
+/** Fields whose change alters the analysis: a checked interval goes back to draft. */
+const analysisInputs = ['fromDepth', 'toDepth', ...analysisSettingKeys] as const
 
 /** Intervals of a hole with their domain name and how many structures fall inside. */
 export async function listIntervals(db: Executor, holeId: number) {
@@ -96,6 +122,11 @@ export async function createInterval(db: Db, actorId: number, hole: Hole, input:
   })
 }
 
+/**
+ * Edits an interval under its version. An approved or issued interval refuses every edit (409
+ * `interval_approved`); a changed range or analysis setting returns a checked interval to draft,
+ * and its checker is told after the commit.
+ */
 export async function updateInterval(
   db: Db,
   actorId: number,
@@ -104,10 +135,11 @@ export async function updateInterval(
   input: IntervalUpdate,
 ) {
   const { version, ...fields } = input
-  return db.transaction(async (tx) => {
+  const reason = 'its range or analysis settings changed'
+  const { after, demoted } = await db.transaction(async (tx) => {
+    // Refuses a frozen interval and locks the row first, so no review step slips in before commit.
+    await assertNotFrozen(tx, hole.id, { intervalIds: [id] }, 'Editing this interval')
     const before = await getInterval(tx, hole.id, id)
-    if (before.status === 'issued')
-      throw conflict('An issued interval cannot change.', 'interval_issued')
     await assertDomain(tx, hole.projectId, fields.domainId)
     const from = fields.fromDepth ?? before.fromDepth
     const to = fields.toDepth ?? before.toDepth
@@ -116,12 +148,12 @@ export async function updateInterval(
         { path: 'body.toDepth', message: 'must be greater than fromDepth' },
       ])
     await assertNoOverlap(tx, hole, from, to, id)
-    const [after] = await tx
+    const [updated] = await tx
       .update(intervals)
       .set({ ...fields, version: version + 1, updatedAt: new Date() })
       .where(and(eq(intervals.id, id), eq(intervals.version, version)))
       .returning()
-    if (!after) throw staleVersion()
+    if (!updated) throw staleVersion()
     await audit(tx, {
       projectId: hole.projectId,
       userId: actorId,
@@ -129,10 +161,16 @@ export async function updateInterval(
       entityId: id,
       action: 'update',
       before,
-      after,
+      after: updated,
     })
-    return after
+    const changed = analysisInputs.some((k) => updated[k] !== before[k])
+    const demoted = changed
+      ? await demoteChecked(tx, actorId, hole.projectId, hole.id, { intervalIds: [id] }, reason)
+      : []
+    return { after: demoted[0]?.interval ?? updated, demoted }
   })
+  await noticeDemoted(db, hole.projectId, hole, demoted, reason)
+  return after
 }
 
 export async function deleteInterval(
@@ -143,9 +181,8 @@ export async function deleteInterval(
   version: number,
 ) {
   await db.transaction(async (tx) => {
+    await assertNotFrozen(tx, hole.id, { intervalIds: [id] }, 'Deleting this interval')
     const before = await getInterval(tx, hole.id, id)
-    if (before.status === 'issued')
-      throw conflict('An issued interval cannot be deleted.', 'interval_issued')
     const [gone] = await tx
       .delete(intervals)
       .where(and(eq(intervals.id, id), eq(intervals.version, version)))

@@ -1,21 +1,14 @@
 import { and, eq, inArray, sql } from 'drizzle-orm'
-import {
-  holes,
-  intervals,
-  packFiles,
-  packs,
-  type Pack,
-  type Project,
-  type ProjectRole,
-} from '../../../schema/index'
+import { holes, intervals, packFiles, packs, type Pack, type Project } from '../../../schema/index'
 import type { Db } from '../db/client'
-import { badRequest, conflict, forbidden, notFound } from '../http/errors'
+import { ApiError, badRequest, conflict, notFound } from '../http/errors'
 import { contentHashOf } from '../exports/hash'
 import { loadPackData, type PackSelection } from '../exports/pack-data'
 import { StoredSelection } from '../exports/pack-build'
 import { getPack } from '../exports/pack-records'
+import { isApproved } from '../exports/sign-off'
 
-export { getPack, listPacks } from '../exports/pack-records'
+export { getPack, listPacks, packFile } from '../exports/pack-records'
 import { audit } from './audit'
 
 export const packIssued = () =>
@@ -88,9 +81,13 @@ async function lockPack(
   return row
 }
 
+const packedIds = (pack: Pack) =>
+  (pack.selection as { packed?: { intervalIds?: number[] } }).packed?.intervalIds ?? []
+
 /**
  * Issues a ready pack: fixes its content hash, stamps who and when, and marks the packed intervals
- * issued, all in one transaction. Anything but `ready` is refused.
+ * issued, all in one transaction. Anything but `ready` is refused, and so is a draft pack (409
+ * `pack_draft`) or one whose intervals are no longer all approved (409 `interval_not_approved`).
  */
 export async function issuePack(db: Db, actorId: number, project: Project, packId: string) {
   const projectId = project.id
@@ -101,10 +98,31 @@ export async function issuePack(db: Db, actorId: number, project: Project, packI
         `Only a ready pack can be issued (this one is ${before.status}).`,
         'pack_not_ready',
       )
+    if (before.draft)
+      throw conflict(
+        'A draft pack (built with intervals that were not approved) is a preview: it cannot be issued. Approve the intervals and build a new pack.',
+        'pack_draft',
+      )
+    const packed = packedIds(before)
+    // Lock the packed intervals so none is reopened between this check and the issue.
+    const current = packed.length
+      ? await tx.select().from(intervals).where(inArray(intervals.id, packed)).for('update')
+      : []
+    const unapproved = current.filter((i) => !isApproved(i))
+    if (unapproved.length)
+      throw new ApiError(
+        409,
+        'interval_not_approved',
+        `Only approved intervals can be issued: ${unapproved.map((i) => `"${i.name}" is ${i.status}`).join(', ')}.`,
+        unapproved.map((i) => ({
+          path: 'interval',
+          message: `${i.id} "${i.name}" is ${i.status}`,
+        })),
+      )
     // The rows read now must be the rows the pack was built from, or the pack is stale.
     const { packed: _packed, ...selection } = StoredSelection.parse(before.selection)
     const now = await loadPackData(tx, project, selection)
-    if (now.inputsHash !== before.inputsHash)
+    if (now.draft || now.inputsHash !== before.inputsHash)
       throw conflict('The data changed since this pack was built: rebuild it first.', 'pack_stale')
     const files = await tx
       .select({ name: packFiles.name, sha256: packFiles.sha256 })
@@ -120,13 +138,13 @@ export async function issuePack(db: Db, actorId: number, project: Project, packI
       })
       .where(eq(packs.id, packId))
       .returning()
-    const packed =
-      (before.selection as { packed?: { intervalIds?: number[] } }).packed?.intervalIds ?? []
-    if (packed.length)
-      await tx
-        .update(intervals)
-        .set({ status: 'issued', version: sql`${intervals.version} + 1`, updatedAt: new Date() })
-        .where(inArray(intervals.id, packed))
+    const issued = packed.length
+      ? await tx
+          .update(intervals)
+          .set({ status: 'issued', version: sql`${intervals.version} + 1`, updatedAt: new Date() })
+          .where(and(inArray(intervals.id, packed), eq(intervals.status, 'approved')))
+          .returning({ id: intervals.id })
+      : []
     await audit(tx, {
       projectId,
       userId: actorId,
@@ -134,7 +152,7 @@ export async function issuePack(db: Db, actorId: number, project: Project, packI
       entityId: packId,
       action: 'issue',
       before,
-      after: { ...after, intervalIds: packed },
+      after: { ...after, intervalIds: packed, newlyIssued: issued.map((i) => i.id) },
     })
   })
   return getPack(db, projectId, packId)
@@ -176,29 +194,4 @@ export async function requeuePack(db: Db, actorId: number, projectId: number, pa
     })
     return after
   })
-}
-
-/** A file's bytes. Viewers may read issued packs only; other members any ready or issued pack. */
-export async function packFile(
-  db: Db,
-  projectId: number,
-  role: ProjectRole,
-  packId: string,
-  name: string,
-) {
-  const [pack] = await db
-    .select()
-    .from(packs)
-    .where(and(eq(packs.projectId, projectId), eq(packs.id, packId)))
-  if (!pack) throw notFound('Pack')
-  if (role === 'viewer' && pack.status !== 'issued')
-    throw forbidden('Viewers can download issued packs only.')
-  if (pack.status !== 'ready' && pack.status !== 'issued')
-    throw conflict('The pack is not built yet.', 'pack_not_ready')
-  const [file] = await db
-    .select()
-    .from(packFiles)
-    .where(and(eq(packFiles.packId, packId), eq(packFiles.name, name)))
-  if (!file) throw notFound('File')
-  return file
 }

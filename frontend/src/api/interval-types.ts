@@ -1,11 +1,23 @@
 // Shapes of the depth-view and interval-review API, mirrored by hand from the contract.
 import type { Id } from './types'
-import type { StructureType } from '../../../schema/vocabulary'
+import type { AnalysisSettingKey, StructureType } from '../../../schema/vocabulary'
 
-export type { StructureType }
+export type { AnalysisSettingKey, StructureType }
 export type StructureSource = 'core' | 'image' | 'true'
 export type IntervalStatus = 'draft' | 'checked' | 'approved' | 'issued'
 export type Weighting = 'terzaghi' | 'none'
+export type ContourMethod = 'kamb' | 'exponential'
+
+/** An interval's analysis settings: saved with it, shown on its screen, used by its pack. */
+export interface AnalysisSettings {
+  weighting: Weighting
+  contourMethod: ContourMethod
+  faceDip: number | null
+  faceDipDirection: number | null
+  frictionDeg: number | null
+  lateralLimitDeg: number
+  topplingLimitDeg: number
+}
 
 /** A logged structure as the depth view reads it (GET …/holes/:holeId/structures). */
 export interface DepthStructure {
@@ -71,7 +83,7 @@ export interface Domain {
   description: string
 }
 
-export interface Interval {
+export interface Interval extends AnalysisSettings {
   id: Id
   holeId: Id
   domainId: Id | null
@@ -80,31 +92,34 @@ export interface Interval {
   fromDepth: number
   toDepth: number
   status: IntervalStatus
-  faceDip: number | null
-  faceDipDirection: number | null
-  frictionDeg: number | null
+  checkedBy?: Id | null
+  checkedAt?: string | null
+  approvedBy?: Id | null
+  approvedAt?: string | null
   version: number
   structureCount: number
 }
 
-export interface IntervalCreate {
+export interface IntervalCreate extends Partial<AnalysisSettings> {
   name: string
   fromDepth: number
   toDepth: number
   domainId?: Id | null
-  faceDip?: number | null
-  faceDipDirection?: number | null
-  frictionDeg?: number | null
 }
 
 export type IntervalUpdate = { version: number } & Partial<IntervalCreate>
 
-export interface AnalysisQuery {
-  weighting: Weighting
+/** Filters, and settings that override the saved ones for exploring (left out = saved). */
+export interface AnalysisQuery extends Partial<AnalysisSettings> {
   types?: readonly string[]
   sources?: readonly StructureSource[]
-  lateralLimit?: number
-  topplingLimit?: number
+}
+
+/** Which settings the analysis used, the interval's saved ones, and the keys that differ. */
+export interface AnalysisSettingsUsed {
+  saved: AnalysisSettings
+  used: AnalysisSettings
+  overridden: AnalysisSettingKey[]
 }
 
 export interface AnalysisStructure {
@@ -193,6 +208,7 @@ export interface Kinematics {
 
 export interface Analysis {
   interval: Interval
+  settings: AnalysisSettingsUsed
   /** Hole direction at mid-interval (null without a survey): the blind zone's axis. */
   hole: { trend: number; plunge: number } | null
   counts: { total: number; oriented: number; unoriented: number; flagged: number }

@@ -1,5 +1,6 @@
 // Calls of the depth view and the interval view: the hole's logged data read for tracks, and the
 // engineer's domains, intervals, sets and analysis.
+import { analysisSettingKeys } from '../../../schema/vocabulary'
 import { api, seg } from './client'
 import type { IdParam } from './types'
 import type {
@@ -67,21 +68,28 @@ export const deleteInterval = (ref: IntervalRef, version: number) =>
     `${intervalPath(ref.projectId, ref.holeId, ref.intervalId)}?version=${version}`,
   )
 
-/** The query string of an analysis request; empty filters are left out (all types, all sources). */
+/**
+ * The query string of an analysis request. Empty filters are left out (all types, all sources),
+ * and so is every setting not given or null: the server then uses the interval's saved setting.
+ */
 export function analysisSearch(query: AnalysisQuery): string {
-  const params = new URLSearchParams({ weighting: query.weighting })
+  const params = new URLSearchParams()
   if (query.types?.length) params.set('types', query.types.join(','))
   if (query.sources?.length) params.set('sources', query.sources.join(','))
-  if (query.lateralLimit !== undefined) params.set('lateralLimit', String(query.lateralLimit))
-  if (query.topplingLimit !== undefined) params.set('topplingLimit', String(query.topplingLimit))
+  for (const key of analysisSettingKeys) {
+    const value = query[key]
+    if (value !== undefined && value !== null) params.set(key, String(value))
+  }
   return params.toString()
 }
 
-export const getAnalysis = (ref: IntervalRef, query: AnalysisQuery, signal?: AbortSignal) =>
-  api.get<Analysis>(
-    `${intervalPath(ref.projectId, ref.holeId, ref.intervalId)}/analysis?${analysisSearch(query)}`,
+export const getAnalysis = (ref: IntervalRef, query: AnalysisQuery = {}, signal?: AbortSignal) => {
+  const search = analysisSearch(query)
+  return api.get<Analysis>(
+    `${intervalPath(ref.projectId, ref.holeId, ref.intervalId)}/analysis${search ? `?${search}` : ''}`,
     { signal },
   )
+}
 
 export const createSet = (ref: IntervalRef, body: SetCreate) =>
   api.post<unknown>(setsPath(ref.projectId, ref.holeId, ref.intervalId), body)

@@ -7,6 +7,8 @@ export interface PackSummary {
   id: string
   projectId: number
   status: PackStatus
+  /** Built with intervals that were not approved: a preview that says DRAFT and is never issued. */
+  draft: boolean
   selection: { holeIds?: number[]; intervalIds?: number[] }
   progress: number
   message: string
@@ -27,8 +29,18 @@ export interface PackFile {
   sha256: string
 }
 
+/** A packed interval as it is now (its status may have moved on since the build). */
+export interface PackInterval {
+  id: number
+  holeId: number
+  holeName: string
+  name: string
+  status: 'draft' | 'checked' | 'approved' | 'issued'
+}
+
 export interface PackDetail extends PackSummary {
   files: PackFile[]
+  intervals: PackInterval[]
 }
 
 export interface PackSelection {

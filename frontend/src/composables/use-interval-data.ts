@@ -16,7 +16,6 @@ import {
 import type { Hole, ProjectWithRole } from '../api/types'
 import type {
   Analysis,
-  AnalysisQuery,
   AnalysisSet,
   KSuggestion,
   SetCreate,
@@ -24,15 +23,16 @@ import type {
 } from '../api/interval-types'
 import { describeError } from '../components/format'
 import { useAuthStore } from '../stores/auth'
+import { useIntervalSettings } from './use-interval-settings'
 import { useNotFound } from './use-not-found'
 
-export interface FaceSettings {
-  faceDip: number | null
-  faceDipDirection: number | null
-  frictionDeg: number | null
-}
+/** From approval on, an interval's sets and settings are frozen until a lead reopens it. */
+export const frozenStatuses = ['approved', 'issued'] as const
 
-/** The interval view's server state: the analysis (the numbers shown) and the engineer's edits. */
+/**
+ * The interval view's server state: the analysis (the numbers shown, with the filters and the
+ * explored settings), the saved settings, and the engineer's edits.
+ */
 export function useIntervalData(ids: () => IntervalRef) {
   const auth = useAuthStore()
   const handleMissing = useNotFound()
@@ -43,25 +43,22 @@ export function useIntervalData(ids: () => IntervalRef) {
   const loading = ref(false)
   const busy = ref(false)
   const error = ref<string | null>(null)
-  const query = reactive({
-    weighting: 'none' as AnalysisQuery['weighting'],
-    types: [] as string[],
-    sources: [] as StructureSource[],
-    lateralLimit: 20,
-    topplingLimit: 30,
-  })
+  const query = reactive({ types: [] as string[], sources: [] as StructureSource[] })
   let pending: AbortController | null = null
 
   const interval = computed(() => analysis.value?.interval ?? null)
-  const canEdit = computed(
-    () => auth.can(ids().projectId, 'engineer') && interval.value?.status !== 'issued',
+  const settings = useIntervalSettings(interval)
+  const frozen = computed(() =>
+    (frozenStatuses as readonly string[]).includes(interval.value?.status ?? ''),
   )
+  const canEdit = computed(() => auth.can(ids().projectId, 'engineer') && !frozen.value)
 
   async function refresh() {
     pending?.abort()
     const controller = (pending = new AbortController())
     try {
-      analysis.value = await getAnalysis(ids(), { ...query }, controller.signal)
+      const search = { ...query, ...settings.overrides.value }
+      analysis.value = await getAnalysis(ids(), search, controller.signal)
     } catch (err: unknown) {
       if (err instanceof Error && err.name === 'AbortError') return
       if (!handleMissing(err)) error.value = describeError(err, 'The analysis could not be loaded.')
@@ -112,7 +109,7 @@ export function useIntervalData(ids: () => IntervalRef) {
 
   /** Current members of every set, unfiltered (the analysis shown may be filtered by type). */
   async function membersBySet(): Promise<Map<number, number[]>> {
-    const full = await getAnalysis(ids(), { weighting: 'none' })
+    const full = await getAnalysis(ids())
     const map = new Map<number, number[]>()
     for (const s of full.structures)
       if (s.setId !== null) map.set(s.setId, [...(map.get(s.setId) ?? []), s.id])
@@ -143,10 +140,11 @@ export function useIntervalData(ids: () => IntervalRef) {
               members.filter((m) => !out.has(m)),
             )
       }),
-    saveFace: (face: FaceSettings) =>
+    /** Saves the explored settings as the interval's own (a checked interval returns to draft). */
+    saveSettings: () =>
       edit(async () => {
         const current = interval.value
-        if (current) await updateInterval(ids(), { version: current.version, ...face })
+        if (current) await updateInterval(ids(), { version: current.version, ...settings.explore })
       }),
   }
 
@@ -160,6 +158,8 @@ export function useIntervalData(ids: () => IntervalRef) {
     busy,
     error,
     query,
+    settings,
+    frozen,
     canEdit,
     load,
     refresh,

@@ -1,5 +1,5 @@
 import { computed, ref, watch, type Ref, type ShallowRef } from 'vue'
-import type { Analysis } from '../api/interval-types'
+import type { Analysis, AnalysisSettings } from '../api/interval-types'
 import type { NetProjection } from '../components/net/net-geometry'
 import type { DensityMethod } from '../components/net/net-contours'
 import type { ZoneMode } from '../components/net/net-kinematic-zones'
@@ -9,15 +9,30 @@ import type * as T from '../components/net/net-types'
 /**
  * What the interval's net draws, from the server's analysis, and the display choices around it:
  * projection, poles or great circles, contours, the kinematic zone, the tool and the selection.
+ * The contour method and the weighting are the explored analysis settings (they start from the
+ * interval's saved ones); hiding the contours is a display choice only.
  */
 export function useIntervalNet(
   analysis: ShallowRef<Analysis | null>,
   defaultProjection: Ref<NetProjection | undefined>,
+  settings: AnalysisSettings,
 ) {
   const projection = ref<NetProjection>('equal-area')
   const display = ref<T.NetDisplay>('poles')
-  const method = ref<DensityMethod | 'none'>('kamb')
-  const weighted = ref(false)
+  const showContours = ref(true)
+  const method = computed<DensityMethod | 'none'>({
+    get: () => (showContours.value ? settings.contourMethod : 'none'),
+    set: (m) => {
+      showContours.value = m !== 'none'
+      if (m !== 'none') settings.contourMethod = m
+    },
+  })
+  const weighted = computed<boolean>({
+    get: () => settings.weighting === 'terzaghi',
+    set: (w) => {
+      settings.weighting = w ? 'terzaghi' : 'none'
+    },
+  })
   const zoneMode = ref<ZoneMode | 'none'>('planar')
   const tool = ref<T.NetTool>('inspect')
   const selected = ref<number[]>([])
