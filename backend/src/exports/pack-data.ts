@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray } from 'drizzle-orm'
+import { and, asc, eq, inArray, isNull } from 'drizzle-orm'
 import {
   domains,
   holes,
@@ -68,7 +68,8 @@ export async function loadPackData(
   const allHoles = await db
     .select()
     .from(holes)
-    .where(eq(holes.projectId, project.id))
+    // a deleted hole (in the bin) is in no pack
+    .where(and(eq(holes.projectId, project.id), isNull(holes.deletedAt)))
     .orderBy(asc(holes.name))
   const holeIdsAll = allHoles.map((h) => h.id)
   const allIntervals = holeIdsAll.length

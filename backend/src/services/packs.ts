@@ -1,4 +1,4 @@
-import { and, eq, inArray, sql } from 'drizzle-orm'
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm'
 import { holes, intervals, packFiles, packs, type Pack, type Project } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { ApiError, badRequest, conflict, notFound } from '../http/errors'
@@ -22,7 +22,9 @@ async function checkSelection(db: Db, projectId: number, selection: PackSelectio
     ? await db
         .select({ id: holes.id })
         .from(holes)
-        .where(and(eq(holes.projectId, projectId), inArray(holes.id, holeIds)))
+        .where(
+          and(eq(holes.projectId, projectId), inArray(holes.id, holeIds), isNull(holes.deletedAt)),
+        )
     : []
   if (found.length !== new Set(holeIds).size)
     throw badRequest('Unknown hole in the selection.', [

@@ -11,7 +11,7 @@ import { roleAtLeast } from '../auth/guards'
 import { ApiError, conflict, forbidden, staleVersion } from '../http/errors'
 import { notifyProject } from '../mail/notify'
 import { audit } from './audit'
-import { getInterval } from './intervals'
+import { getInterval, settingsOf } from './intervals'
 
 type Step = 'check' | 'approve' | 'reopen'
 const from: Record<Step, Interval['status'][]> = {
@@ -106,7 +106,12 @@ export async function reviewStep(
       entityId: intervalId,
       action: step,
       before: { status: before.status },
-      after: { status: row.status, ...(input.reason ? { reason: input.reason } : {}) },
+      after: {
+        status: row.status,
+        ...(input.reason ? { reason: input.reason } : {}),
+        // what the approver saw: the analysis settings the pack will use
+        ...(step === 'approve' ? { settings: settingsOf(row) } : {}),
+      },
     })
     return { row, before }
   })
