@@ -10,16 +10,15 @@ import {
   timestamp,
 } from 'drizzle-orm/pg-core'
 import { users } from './users'
+import { projectRoles } from './vocabulary'
+
+export { projectRoles, type ProjectRole } from './vocabulary'
 
 export const declinationModes = ['auto', 'manual'] as const
 /** Grid convergence: computed from the CRS at each collar, or one value typed by hand. */
 export const convergenceModes = ['auto', 'manual'] as const
 export const referenceLines = ['bottom', 'top'] as const
 export const netProjections = ['equal-area', 'equal-angle'] as const
-/** Lowest to highest; a global admin counts as lead in every project. */
-export const projectRoles = ['viewer', 'logger', 'engineer', 'lead'] as const
-export type ProjectRole = (typeof projectRoles)[number]
-
 export const declinationMode = pgEnum('declination_mode', declinationModes)
 export const convergenceMode = pgEnum('convergence_mode', convergenceModes)
 export const referenceLine = pgEnum('reference_line', referenceLines)

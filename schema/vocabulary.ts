@@ -2,6 +2,13 @@
  * The words Downdip stores and shows, with no dependencies, so the browser can share them with the
  * tables and the API schemas. Trade terms; ISRM (1978) suggested-method classes where they exist.
  */
+/** Project roles, lowest to highest; a global admin counts as lead in every project. */
+export const projectRoles = ['viewer', 'logger', 'engineer', 'lead'] as const
+export type ProjectRole = (typeof projectRoles)[number]
+/** The role ladder: guards (403) and services (what a role may do) both read it. */
+export const roleRank = (role: ProjectRole) => projectRoles.indexOf(role)
+export const roleAtLeast = (role: ProjectRole, min: ProjectRole) => roleRank(role) >= roleRank(min)
+
 export const structureTypes = [
   'joint',
   'bedding',

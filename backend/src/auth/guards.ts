@@ -2,17 +2,17 @@ import type { RequestHandler } from 'express'
 import { and, eq, isNull } from 'drizzle-orm'
 import { z } from 'zod'
 import {
+  roleAtLeast,
   memberships,
   projects,
   type Project,
   type ProjectRole,
-  projectRoles,
 } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { forbidden, notFound, unauthorized } from '../http/errors'
 
-export const roleRank = (role: ProjectRole) => projectRoles.indexOf(role)
-export const roleAtLeast = (role: ProjectRole, min: ProjectRole) => roleRank(role) >= roleRank(min)
+// The ladder itself lives in schema/vocabulary.ts (services read it there too).
+export { roleAtLeast, roleRank } from '../../../schema/index'
 
 export const requireSignedIn: RequestHandler = (req, _res, next) => {
   if (!req.user) throw unauthorized()
