@@ -8,7 +8,7 @@ import { eq, sql } from 'drizzle-orm'
 import { createDb, type Db } from '../../backend/src/db/client'
 import { runMigrations } from '../../backend/src/db/migrate'
 import { hashPassword } from '../../backend/src/auth/passport'
-import { holes, imports, projects, users } from '../../schema/index'
+import { holes, imports, packs, projects, users } from '../../schema/index'
 import { holeValues } from './fixture'
 
 // A real server is killed (SIGKILL to its process group) in the middle of a background import
@@ -170,5 +170,44 @@ describe('work interrupted by a crash', () => {
     ).rows
     expect(n).toBe(ROWS)
     console.info(`interrupted import: "failed — interrupted" ${toInterrupted} ms after the kill`)
+  }, 240_000)
+
+  it('a pack build killed mid-way → "failed — interrupted" within a minute; rebuilding it gives one ready pack', async () => {
+    const P = `/api/projects/${projectId}/packs`
+    const made = await call('POST', P, '{}', 'application/json')
+    expect(made.status).toBe(202)
+    const packId = String(made.body.data.id)
+    const status = async () => (await db.select().from(packs).where(eq(packs.id, packId)))[0]
+    for (let i = 0; i < 300 && (await status()).status !== 'building'; i++) await sleep(50)
+    expect((await status()).status).toBe('building')
+    await sleep(300)
+    killServer('SIGKILL')
+    const killedAt = Date.now()
+
+    await startServer()
+    await signIn()
+    let seen = await status()
+    while (seen.status === 'building' && Date.now() - killedAt < 70_000) {
+      await sleep(500)
+      seen = await status()
+    }
+    const toInterrupted = Date.now() - killedAt
+    expect(seen.status).toBe('failed')
+    expect(seen.message).toMatch(/^failed — interrupted/)
+    expect(toInterrupted).toBeLessThan(60_000)
+
+    const again = await call('POST', `${P}/${packId}/rebuild`, '{}', 'application/json')
+    expect(again.status).toBe(202)
+    for (let i = 0; i < 1200 && (await status()).status !== 'ready'; i++) await sleep(100)
+    expect((await status()).status).toBe('ready')
+    const files = await db.execute<{ n: number }>(
+      sql`select count(*)::int as n, count(distinct name)::int as d from pack_files where pack_id = ${packId}`,
+    )
+    const row = files.rows[0] as unknown as { n: number; d: number }
+    expect(row.n).toBeGreaterThan(0)
+    expect(row.n).toBe(row.d)
+    console.info(
+      `interrupted pack build: "failed — interrupted" ${toInterrupted} ms after the kill`,
+    )
   }, 240_000)
 })

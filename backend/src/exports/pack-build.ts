@@ -1,10 +1,11 @@
-import { and, eq } from 'drizzle-orm'
+import { and, eq, inArray } from 'drizzle-orm'
 import { z } from 'zod'
 import { packFiles, packs, projects, users } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { ApiError } from '../http/errors'
 import { loadPackData } from './pack-data'
 import { buildPackFiles } from './pack-files'
+import { holdLease, leaseEnd, leaseFree, newAttempt } from '../services/leases'
 
 /** The request body of a pack build; an empty body packs the whole project. */
 export const PackSelectionBody = z
@@ -21,23 +22,42 @@ export const StoredSelection = PackSelectionBody.extend({
 
 /**
  * Builds a pack from scratch (its old files deleted first), so a retried job after a crash gives
- * the same result. Progress and message are written as it goes; it ends `ready` or `failed`.
- * A refusal (the selection no longer exists) is final; other errors are rethrown for a retry.
+ * the same result. The build claims the pack under a lease for its attempt (see services/leases):
+ * a stale attempt cannot claim it, and only the attempt named on the row may write the files.
+ * Progress and message are written as it goes; it ends `ready` or `failed`. A refusal (the
+ * selection no longer exists) is final; other errors are rethrown for a retry.
  */
-export async function runPackBuild(db: Db, packId: string): Promise<void> {
-  const [pack] = await db.select().from(packs).where(eq(packs.id, packId))
-  if (!pack || pack.status === 'issued') return
+export async function runPackBuild(db: Db, packId: string, jobAttempt?: string): Promise<void> {
+  const attempt = jobAttempt ?? newAttempt()
+  const [pack] = await db
+    .update(packs)
+    .set({
+      status: 'building',
+      progress: 5,
+      message: 'Reading data',
+      contentHash: null,
+      attempt,
+      leaseUntil: leaseEnd(),
+    })
+    .where(
+      and(
+        eq(packs.id, packId),
+        inArray(packs.status, ['queued', 'building']),
+        jobAttempt ? eq(packs.attempt, jobAttempt) : undefined,
+        leaseFree(packs),
+      ),
+    )
+    .returning()
+  if (!pack) return
+  const mine = and(eq(packs.id, packId), eq(packs.attempt, attempt), eq(packs.status, 'building'))
+  const releaseLease = holdLease(db, packs, packId, attempt)
   const step = (progress: number, message: string) =>
     db
       .update(packs)
       .set({ progress, message })
-      .where(and(eq(packs.id, packId), eq(packs.status, 'building')))
+      .where(mine)
       .then(() => undefined)
   await db.delete(packFiles).where(eq(packFiles.packId, packId))
-  await db
-    .update(packs)
-    .set({ status: 'building', progress: 5, message: 'Reading data', contentHash: null })
-    .where(eq(packs.id, packId))
   try {
     const [project] = await db.select().from(projects).where(eq(projects.id, pack.projectId))
     const [who] = pack.createdBy
@@ -58,15 +78,15 @@ export async function runPackBuild(db: Db, packId: string): Promise<void> {
         progress: 30,
         message: 'Data read; writing files',
       })
-      .where(eq(packs.id, packId))
+      .where(mine)
     const files = await buildPackFiles(
       data,
       { packId, builtBy: who?.name ?? 'unknown', builtAt: new Date() },
       step,
     )
     await db.transaction(async (tx) => {
-      const [still] = await tx.select().from(packs).where(eq(packs.id, packId)).for('update')
-      if (!still || still.status !== 'building') return
+      const [still] = await tx.select().from(packs).where(mine).for('update')
+      if (!still) return
       await tx.delete(packFiles).where(eq(packFiles.packId, packId))
       await tx.insert(packFiles).values(files.map((f) => ({ ...f, packId })))
       await tx
@@ -75,6 +95,8 @@ export async function runPackBuild(db: Db, packId: string): Promise<void> {
           status: 'ready',
           progress: 100,
           message: `${data.draft ? 'Draft preview' : 'Ready'}: ${files.length} files`,
+          attempt: null,
+          leaseUntil: null,
         })
         .where(eq(packs.id, packId))
     })
@@ -82,8 +104,14 @@ export async function runPackBuild(db: Db, packId: string): Promise<void> {
     const message = err instanceof Error ? err.message : String(err)
     await db
       .update(packs)
-      .set({ status: 'failed', message: `Build failed: ${message}`.slice(0, 1000) })
-      .where(and(eq(packs.id, packId), eq(packs.status, 'building')))
+      .set({
+        status: 'failed',
+        message: `Build failed: ${message}`.slice(0, 1000),
+        leaseUntil: null,
+      })
+      .where(mine)
     if (!(err instanceof ApiError)) throw err
+  } finally {
+    releaseLease()
   }
 }

@@ -38,7 +38,7 @@ export function packBuildJob(db: Db, logger: Logger): JobHandler {
   return async (data) => {
     const packId = String(data.packId)
     try {
-      await runPackBuild(db, packId)
+      await runPackBuild(db, packId, typeof data.attempt === 'string' ? data.attempt : undefined)
     } catch (err: unknown) {
       logger.warn({ packId, err }, 'pack build failed')
       throw err

@@ -40,11 +40,12 @@ export interface PackDeps {
 export function packsRouter({ db, jobs, logger }: PackDeps): Router {
   const router = Router({ mergeParams: true })
   const lead = requireRole('lead')
-  const enqueue = async (packId: string) => {
-    if (jobs) await jobs.send('pack-build', { packId })
+  // The job carries the attempt the pack was queued with: a stale retry cannot build it again.
+  const enqueue = async (packId: string, attempt: string | null) => {
+    if (jobs) await jobs.send('pack-build', { packId, attempt })
     else
       setImmediate(() => {
-        runPackBuild(db, packId).catch((err: unknown) =>
+        runPackBuild(db, packId, attempt ?? undefined).catch((err: unknown) =>
           logger?.error({ err, packId }, 'pack build failed'),
         )
       })
@@ -56,7 +57,7 @@ export function packsRouter({ db, jobs, logger }: PackDeps): Router {
   router.post('/', lead, validate({ body: PackSelectionBody }), async (req, res) => {
     const { body } = inputOf(res, { body: PackSelectionBody })
     const pack = await createPack(db, req.user!.id, projectLocals(res).project, body)
-    await enqueue(pack.id)
+    await enqueue(pack.id, pack.attempt)
     res.status(202).json({ data: { id: pack.id, status: pack.status, progress: pack.progress } })
   })
   router.get('/:packId', async (req, res) => {
@@ -69,7 +70,7 @@ export function packsRouter({ db, jobs, logger }: PackDeps): Router {
   })
   router.post('/:packId/rebuild', lead, async (req, res) => {
     const pack = await requeuePack(db, req.user!.id, projectLocals(res).project.id, packIdOf(req))
-    await enqueue(pack.id)
+    await enqueue(pack.id, pack.attempt)
     res.status(202).json({ data: { id: pack.id, status: pack.status, progress: pack.progress } })
   })
   router.delete('/:packId', lead, async (req, res) => {

@@ -10,6 +10,7 @@ import { isApproved } from '../exports/sign-off'
 
 export { getPack, listPacks, packFile } from '../exports/pack-records'
 import { audit } from './audit'
+import { newAttempt } from './leases'
 
 export const packIssued = () =>
   conflict('An issued pack is frozen: it cannot change.', 'pack_issued')
@@ -54,7 +55,13 @@ export async function createPack(
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(packs)
-      .values({ projectId: project.id, selection, createdBy: actorId, message: 'Queued' })
+      .values({
+        projectId: project.id,
+        selection,
+        createdBy: actorId,
+        message: 'Queued',
+        attempt: newAttempt(),
+      })
       .returning()
     await audit(tx, {
       projectId: project.id,
@@ -182,7 +189,13 @@ export async function requeuePack(db: Db, actorId: number, projectId: number, pa
     const before = await lockPack(tx, projectId, packId)
     const [after] = await tx
       .update(packs)
-      .set({ status: 'queued', progress: 0, message: 'Queued' })
+      .set({
+        status: 'queued',
+        progress: 0,
+        message: 'Queued',
+        attempt: newAttempt(),
+        leaseUntil: null,
+      })
       .where(eq(packs.id, packId))
       .returning()
     await audit(tx, {
