@@ -1,4 +1,5 @@
 import { agsGroups, type AgsHeading } from './ags4-dictionary'
+import { neutraliseCell } from './cell-safety'
 
 /** A group ready to write: its headings (dictionary order, user-defined last) and DATA rows. */
 export interface AgsTable {
@@ -38,6 +39,8 @@ export function dp(x: number | null | undefined, n: number): string {
 
 const quote = (field: string) => `"${asciiField(field).replace(/"/g, '""')}"`
 const line = (fields: string[]) => `${fields.map(quote).join(',')}\r\n`
+/** DATA fields are neutralised against spreadsheet formula injection; numbers stay numbers. */
+const dataLine = (fields: string[]) => line(fields.map((f, i) => (i === 0 ? f : neutraliseCell(f))))
 
 /** The headings of a dictionary group, keeping only those named (dictionary order kept). */
 export function headingsOf(group: string, names?: readonly string[]): AgsHeading[] {
@@ -55,7 +58,7 @@ export function writeAgsTables(tables: readonly AgsTable[]): string {
         line(['HEADING', ...names]),
         line(['UNIT', ...t.headings.map((hd) => hd.unit)]),
         line(['TYPE', ...t.headings.map((hd) => hd.type)]),
-        ...t.rows.map((r) => line(['DATA', ...names.map((n) => r[n] ?? '')])),
+        ...t.rows.map((r) => dataLine(['DATA', ...names.map((n) => r[n] ?? '')])),
       ].join('')
     })
     .join('\r\n')

@@ -1,6 +1,7 @@
 import Papa from 'papaparse'
 import { setColour } from '../../../schema/vocabulary'
 import type { PackData } from './pack-data'
+import { neutraliseCell, neutraliseLine } from './cell-safety'
 
 type Cell = string | number | null | undefined
 const fixed = (x: number | null | undefined, d: number) =>
@@ -9,13 +10,15 @@ const fixed = (x: number | null | undefined, d: number) =>
 /**
  * A CSV (CRLF) whose first lines are `# ` comments (the pack's header: draft mark, sign-off,
  * settings, cautions), then the column header row and the data rows; readers that skip `#` lines
- * (e.g. Papa.parse with `comments: '#'`) see a plain table.
+ * (e.g. Papa.parse with `comments: '#'`) see a plain table. Text cells are neutralised against
+ * spreadsheet formula injection (cell-safety.ts); numbers are written as numbers.
  */
 function toCsv(header: string[], rows: Cell[][], preamble: readonly string[]): string {
+  const safe = (c: Cell) => (typeof c === 'string' ? neutraliseCell(c) : (c ?? ''))
   return (
-    preamble.map((line) => `# ${line}\r\n`).join('') +
+    preamble.map((line) => `# ${neutraliseLine(line)}\r\n`).join('') +
     Papa.unparse(
-      { fields: header, data: rows.map((r) => r.map((c) => c ?? '')) },
+      { fields: header, data: rows.map((r) => r.map(safe)) },
       {
         newline: '\r\n',
       },
