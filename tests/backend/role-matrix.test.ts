@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { eq } from 'drizzle-orm'
 import { readFileSync } from 'node:fs'
+import request from 'supertest'
 import {
   coreRuns,
   logCurves,
@@ -20,6 +21,7 @@ import {
   clientFor,
   createFixture,
   holeValues,
+  PASSWORD,
   type Actor,
   type Client,
   type Fixture,
@@ -858,6 +860,34 @@ describe('role × route matrix', () => {
           expect(res.status, JSON.stringify(res.body)).toBe(status)
           if (res.status >= 400) expect(res.body.error.code).toBeTypeOf('string')
         })
+      }
+    })
+  }
+})
+
+// Cross-site request forgery: every write, by the most powerful caller, without the X-CSRF-Token
+// header (or with another session's token) is refused with 403 before it does anything.
+describe('CSRF × every write', () => {
+  const writes = cases.filter((c) => c.method !== 'get')
+  it(`covers every write route (${writes.length})`, () => {
+    expect(writes.length).toBeGreaterThanOrEqual(45)
+  })
+  for (const c of writes) {
+    it(`${c.method.toUpperCase()} ${c.route} → 403 csrf_token without the header and with a stranger's token`, async () => {
+      const agent = request.agent(fx.app)
+      const token = (await agent.get('/api/auth/csrf')).body.data.csrfToken as string
+      await agent
+        .post('/api/auth/login')
+        .set('X-CSRF-Token', token)
+        .send({ email: 'admin@test.example', password: PASSWORD })
+      const stranger = clients.viewer.csrf
+      const { path, body } = await c.prepare(fx)
+      for (const header of [undefined, stranger]) {
+        const req = agent[c.method](path)
+        if (header) req.set('X-CSRF-Token', header)
+        const res = c.method === 'delete' ? await req : await req.send(body ?? {})
+        expect(res.status, JSON.stringify(res.body)).toBe(403)
+        expect(res.body.error.code).toBe('csrf_token')
       }
     })
   }
