@@ -1,7 +1,7 @@
 import { coreToPlane } from './core'
 import { poleOf } from './planes'
 import { prepareSurvey } from './survey-interpolate'
-import { terzaghiWeight } from './terzaghi'
+import { TERZAGHI_CAP, terzaghiWeight, terzaghiWeightOfAlpha } from './terzaghi'
 import { imagePickToPlane, type ImagePick } from './image-pick'
 import type { Line, Plane } from './types'
 
@@ -74,7 +74,6 @@ export interface StructureComputed {
   flags: StructureFlag[]
 }
 
-const TERZAGHI_CAP = 10
 /** Above this relative dip a sinusoid's height exceeds about 11 hole diameters: not a reliable pick. */
 const MAX_PICK_RELATIVE_DIP = 85
 
@@ -136,9 +135,7 @@ export function computeStructures(
           previousBeta.set(key, s.beta!)
         }
       } else flags.push('unoriented')
-      // On core the weight needs alpha only: w = 1/sin(alpha), capped (Terzaghi 1965).
-      const sin = Math.sin((alpha * Math.PI) / 180)
-      weight = sin * TERZAGHI_CAP <= 1 ? TERZAGHI_CAP : 1 / sin
+      weight = terzaghiWeightOfAlpha(alpha, TERZAGHI_CAP)
     } else if (s.source === 'true') {
       plane = { dip: s.inputDip ?? 0, dipDirection: s.inputDipDirection ?? 0 }
     } else if (s.pick) {

@@ -81,3 +81,25 @@ export function runMetrics(run: CoreRun): RunMetrics | undefined {
     flags,
   }
 }
+
+/** A core run under the names the database and the API use (metres, natural fracture count). */
+export interface LoggedRun {
+  readonly fromDepth: number
+  readonly toDepth: number
+  readonly recovered: number
+  readonly solid: number
+  readonly rqdLength: number
+  readonly fractureCount: number
+}
+
+/** runMetrics of a logged run: the one mapping from its names, for the server and the browser. */
+export function runMetricsOf(run: LoggedRun): RunMetrics | undefined {
+  return runMetrics({
+    from: run.fromDepth,
+    to: run.toDepth,
+    recovered: run.recovered,
+    solid: run.solid,
+    rqdLength: run.rqdLength,
+    fractures: run.fractureCount,
+  })
+}

@@ -2,14 +2,16 @@
 import { z } from 'zod'
 import {
   confidences,
+  enteredSources,
   markConfidences,
   persistenceClasses,
+  referenceLines,
   roughnessClasses,
   structureStates,
   structureTypes,
   weatheringGrades,
+  type EnteredSource,
 } from './vocabulary'
-import { referenceLines } from './projects'
 
 const depth = z.number().min(0).max(5000)
 const version = z.number().int().positive()
@@ -57,7 +59,7 @@ export const RunsReplaceBody = z.object({ runs: z.array(RunInput).max(5000) }).s
 export const structureFields = {
   depth,
   type: z.enum(structureTypes),
-  source: z.enum(['core', 'true']),
+  source: z.enum(enteredSources),
   alpha: z.number().min(0).max(90).optional(),
   beta: z.number().min(0).max(360).optional(),
   gamma: z.number().min(0).max(360).optional(),
@@ -77,7 +79,7 @@ export const structureFields = {
 }
 
 type StructureShape = {
-  source?: 'core' | 'true'
+  source?: EnteredSource
   alpha?: number
   dip?: number
   dipDirection?: number
@@ -143,5 +145,8 @@ export const StructureUpdateBody = z
   .strict()
 
 export type RunInputT = z.infer<typeof RunInput>
+export type RunUpdate = z.infer<typeof RunUpdateBody>
 export type StructureInputT = z.infer<typeof StructureInput>
+/** A structure as a client sends it: source may be left out (core). */
+export type StructureSent = z.input<typeof StructureInput>
 export type StructureUpdate = z.infer<typeof StructureUpdateBody>

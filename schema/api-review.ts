@@ -1,7 +1,12 @@
 /** Request schemas for domains, intervals and sets (the engineer's review). */
 import { z } from 'zod'
-import { structureSources, structureTypes } from './vocabulary'
-import { analysisWeightings, contourMethods } from './intervals'
+import {
+  analysisWeightings,
+  commentEntities,
+  contourMethods,
+  structureSources,
+  structureTypes,
+} from './vocabulary'
 
 const depth = z.number().min(0).max(5000)
 const version = z.number().int().positive()
@@ -103,11 +108,12 @@ export const MembersBody = z
 export type IntervalCreate = z.infer<typeof IntervalCreateBody>
 export type IntervalUpdate = z.infer<typeof IntervalUpdateBody>
 export type AnalysisOptions = z.infer<typeof AnalysisQuery>
+export type SetCreate = z.infer<typeof SetCreateBody>
+export type SetUpdate = z.infer<typeof SetUpdateBody>
 
 export const ReviewBody = z.object({ version }).strict()
 export const ReopenBody = z.object({ version, reason: z.string().trim().min(3).max(1000) }).strict()
 
-export const commentEntities = ['structure', 'interval'] as const
 export const CommentQuery = z
   .object({ entity: z.enum(commentEntities), entityId: z.coerce.number().int().positive() })
   .strict()

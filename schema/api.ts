@@ -6,7 +6,8 @@
 import { createInsertSchema } from 'drizzle-zod'
 import { z } from 'zod'
 import { holes, surveyStations } from './holes'
-import { projects, projectRoles } from './projects'
+import { projects } from './projects'
+import { projectRoles } from './vocabulary'
 import { users } from './users'
 
 const azimuth = z.number().min(0).max(360)
@@ -124,9 +125,27 @@ export const UserUpdateBody = z
 
 export const IdParam = (name: string) => z.object({ [name]: z.coerce.number().int().positive() })
 
-export type ProjectCreate = z.infer<typeof ProjectCreateBody>
+/** Keys an insert into the table may leave out: the column has a default or takes null. */
+type OmittableKeys<Insert> = {
+  [K in keyof Insert]-?: object extends Pick<Insert, K> ? K : never
+}[keyof Insert]
+/**
+ * What a schema accepts: drizzle-zod types a refined column that has a default, or is nullable, as
+ * required, although the schema lets it be left out (drizzle-team/drizzle-orm#4706).
+ */
+type Accepted<T, Insert> = Omit<T, OmittableKeys<Insert>> &
+  Partial<Pick<T, Extract<keyof T, OmittableKeys<Insert>>>>
+
+export type ProjectCreate = Accepted<
+  z.infer<typeof ProjectCreateBody>,
+  typeof projects.$inferInsert
+>
 export type ProjectUpdate = z.infer<typeof ProjectUpdateBody>
-export type HoleCreate = z.infer<typeof HoleCreateBody>
+export type HoleCreate = Accepted<z.infer<typeof HoleCreateBody>, typeof holes.$inferInsert>
 export type HoleUpdate = z.infer<typeof HoleUpdateBody>
-export type StationInputT = z.infer<typeof StationInput>
+export type StationInputT = Accepted<
+  z.infer<typeof StationInput>,
+  typeof surveyStations.$inferInsert
+>
 export type UserCreate = z.infer<typeof UserCreateBody>
+export type UserUpdate = z.infer<typeof UserUpdateBody>

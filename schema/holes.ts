@@ -12,9 +12,7 @@ import {
 } from 'drizzle-orm/pg-core'
 import { sql } from 'drizzle-orm'
 import { projects } from './projects'
-
-export const holeStatuses = ['planned', 'drilling', 'complete', 'abandoned'] as const
-export const azimuthReferences = ['magnetic', 'true', 'grid'] as const
+import { azimuthReferences, holeStatuses } from './vocabulary'
 
 export const holeStatus = pgEnum('hole_status', holeStatuses)
 export const azimuthReference = pgEnum('azimuth_reference', azimuthReferences)

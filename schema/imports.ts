@@ -12,18 +12,10 @@ import {
 import { holes } from './holes'
 import { projects } from './projects'
 import { users } from './users'
+import { importKinds, importStatuses } from './vocabulary'
 
 const bytea = customType<{ data: Buffer }>({ dataType: () => 'bytea' })
 
-export const importKinds = ['survey', 'runs', 'structures', 'picks', 'las'] as const
-export const importStatuses = [
-  'previewed',
-  'queued',
-  'committing',
-  'committed',
-  'failed',
-  'undone',
-] as const
 export const importKind = pgEnum('import_kind', importKinds)
 export const importStatus = pgEnum('import_status', importStatuses)
 

@@ -14,14 +14,11 @@ import { sql } from 'drizzle-orm'
 import { holes } from './holes'
 import { projects } from './projects'
 import { structures } from './logging'
+import { analysisWeightings, contourMethods, intervalStatuses, setRules } from './vocabulary'
 
-export const intervalStatuses = ['draft', 'checked', 'approved', 'issued'] as const
 export const intervalStatus = pgEnum('interval_status', intervalStatuses)
-export const setRules = ['cone', 'cluster'] as const
 export const setRule = pgEnum('set_rule', setRules)
-export const analysisWeightings = ['terzaghi', 'none'] as const
 export const analysisWeighting = pgEnum('analysis_weighting', analysisWeightings)
-export const contourMethods = ['kamb', 'exponential'] as const
 export const contourMethod = pgEnum('contour_method', contourMethods)
 
 /** A structural/geotechnical domain gathering intervals across holes. */

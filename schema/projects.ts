@@ -10,15 +10,14 @@ import {
   timestamp,
 } from 'drizzle-orm/pg-core'
 import { users } from './users'
-import { projectRoles } from './vocabulary'
+import {
+  convergenceModes,
+  declinationModes,
+  netProjections,
+  projectRoles,
+  referenceLines,
+} from './vocabulary'
 
-export { projectRoles, type ProjectRole } from './vocabulary'
-
-export const declinationModes = ['auto', 'manual'] as const
-/** Grid convergence: computed from the CRS at each collar, or one value typed by hand. */
-export const convergenceModes = ['auto', 'manual'] as const
-export const referenceLines = ['bottom', 'top'] as const
-export const netProjections = ['equal-area', 'equal-angle'] as const
 export const declinationMode = pgEnum('declination_mode', declinationModes)
 export const convergenceMode = pgEnum('convergence_mode', convergenceModes)
 export const referenceLine = pgEnum('reference_line', referenceLines)

@@ -14,10 +14,10 @@ import {
 } from 'drizzle-orm/pg-core'
 import { projectRole, projects } from './projects'
 import { users } from './users'
+import { packStatuses, tokenPurposes } from './vocabulary'
 
 const bytea = customType<{ data: Buffer }>({ dataType: () => 'bytea' })
 
-export const tokenPurposes = ['invite', 'reset'] as const
 export const tokenPurpose = pgEnum('token_purpose', tokenPurposes)
 
 /**
@@ -71,7 +71,6 @@ export const capturedMails = pgTable('captured_mails', {
   receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
 })
 
-export const packStatuses = ['queued', 'building', 'ready', 'failed', 'issued'] as const
 export const packStatus = pgEnum('pack_status', packStatuses)
 
 /** A design pack: a selection of holes/intervals built into files, frozen once issued. */

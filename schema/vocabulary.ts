@@ -9,6 +9,22 @@ export type ProjectRole = (typeof projectRoles)[number]
 export const roleRank = (role: ProjectRole) => projectRoles.indexOf(role)
 export const roleAtLeast = (role: ProjectRole, min: ProjectRole) => roleRank(role) >= roleRank(min)
 
+/** Holes, their survey and the project's conventions. */
+export const holeStatuses = ['planned', 'drilling', 'complete', 'abandoned'] as const
+export type HoleStatus = (typeof holeStatuses)[number]
+export const azimuthReferences = ['magnetic', 'true', 'grid'] as const
+export type AzimuthReference = (typeof azimuthReferences)[number]
+export const declinationModes = ['auto', 'manual'] as const
+export type DeclinationMode = (typeof declinationModes)[number]
+/** Grid convergence: computed from the CRS at each collar, or one value typed by hand. */
+export const convergenceModes = ['auto', 'manual'] as const
+export type ConvergenceMode = (typeof convergenceModes)[number]
+/** The line beta is measured from, on the core's bottom or top. */
+export const referenceLines = ['bottom', 'top'] as const
+export type ReferenceLine = (typeof referenceLines)[number]
+export const netProjections = ['equal-area', 'equal-angle'] as const
+export type NetProjection = (typeof netProjections)[number]
+
 export const structureTypes = [
   'joint',
   'bedding',
@@ -46,6 +62,10 @@ export function parseStructureType(text: string): StructureType | undefined {
 }
 
 export const structureSources = ['core', 'image', 'true'] as const
+export type StructureSource = (typeof structureSources)[number]
+/** Sources a logger posts or a structure file holds; image structures come from picks. */
+export const enteredSources = ['core', 'true'] as const
+export type EnteredSource = (typeof enteredSources)[number]
 export const markConfidences = ['good', 'fair', 'poor', 'none'] as const
 export type MarkConfidence = (typeof markConfidences)[number]
 
@@ -70,7 +90,40 @@ export const weatheringGrades = [
   'residual soil',
 ] as const
 export const structureStates = ['open', 'closed', 'healed'] as const
+export type StructureState = (typeof structureStates)[number]
 export const confidences = ['high', 'medium', 'low'] as const
+export type Confidence = (typeof confidences)[number]
+
+/** Review: an interval goes draft → checked → approved → issued. */
+export const intervalStatuses = ['draft', 'checked', 'approved', 'issued'] as const
+export type IntervalStatus = (typeof intervalStatuses)[number]
+export const setRules = ['cone', 'cluster'] as const
+export type SetRule = (typeof setRules)[number]
+export const analysisWeightings = ['terzaghi', 'none'] as const
+export type AnalysisWeighting = (typeof analysisWeightings)[number]
+export const contourMethods = ['kamb', 'exponential'] as const
+export type ContourMethod = (typeof contourMethods)[number]
+export const commentEntities = ['structure', 'interval'] as const
+export type CommentEntity = (typeof commentEntities)[number]
+
+/** Files in and out: what an upload holds and where it stands; design packs; e-mail tokens. */
+export const importKinds = ['survey', 'runs', 'structures', 'picks', 'las'] as const
+export type ImportKind = (typeof importKinds)[number]
+/** The import kinds read from CSV (LAS has its own reader). */
+export const csvImportKinds = ['structures', 'runs', 'survey', 'picks'] as const
+export type CsvImportKind = (typeof csvImportKinds)[number]
+export const importStatuses = [
+  'previewed',
+  'queued',
+  'committing',
+  'committed',
+  'failed',
+  'undone',
+] as const
+export type ImportStatus = (typeof importStatuses)[number]
+export const packStatuses = ['queued', 'building', 'ready', 'failed', 'issued'] as const
+export type PackStatus = (typeof packStatuses)[number]
+export const tokenPurposes = ['invite', 'reset'] as const
 
 /**
  * Set colours, one palette for the screen's nets and tables and the design pack's nets: Downdip's
@@ -107,3 +160,5 @@ export const analysisSettingKeys = [
   'topplingLimitDeg',
 ] as const
 export type AnalysisSettingKey = (typeof analysisSettingKeys)[number]
+
+export * from './vocabulary-imports'

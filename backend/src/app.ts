@@ -10,6 +10,7 @@ import type { Db } from './db/client'
 import type { Env } from './env'
 import type { Logger } from './logger'
 import type { JobQueue } from './jobs/queue'
+import type { Mailer } from './mail/transport'
 import { createPassport } from './auth/passport'
 import { requireCsrfToken } from './auth/csrf'
 import { loadProject, requireSignedIn } from './auth/guards'
@@ -29,12 +30,14 @@ export interface AppDeps {
   logger: Logger
   /** The background queue; without it (single-process tests) large imports commit in the request. */
   jobs?: JobQueue
+  /** Every mail the app sends goes out through this (createMailer in mail/transport.ts). */
+  mail: Mailer
 }
 
 const distDir = fileURLToPath(new URL('../../frontend/dist', import.meta.url))
 
 /** Builds the Express app (no listen): security → body → session/auth → routers → errors. */
-export function createApp({ db, pool, env, logger, jobs }: AppDeps) {
+export function createApp({ db, pool, env, logger, jobs, mail }: AppDeps) {
   const app = express()
   const passport = createPassport(db)
   const PgStore = connectPgSimple(session)
@@ -94,15 +97,15 @@ export function createApp({ db, pool, env, logger, jobs }: AppDeps) {
   // routers
   app.use('/api/health', healthRouter(db))
   app.use('/api/auth', authRouter(db, passport, env.LOGIN_ATTEMPTS_PER_WINDOW))
-  app.use('/api/auth', passwordResetRouter(db, env))
+  app.use('/api/auth', passwordResetRouter(db, mail, env.LOGIN_ATTEMPTS_PER_WINDOW))
   app.use('/api/users', usersRouter(db))
-  app.use('/api/invitations', invitationsRouter(db, env))
+  app.use('/api/invitations', invitationsRouter(db, mail))
   app.use('/api/dev/mailbox', mailboxRouter(db, env))
   app.use('/api/projects', requireSignedIn, projectsRouter(db))
   app.use(
     '/api/projects/:projectId',
     loadProject(db),
-    projectRouter({ db, pool, jobs, uploadLimitMb: env.UPLOAD_LIMIT_MB }),
+    projectRouter({ db, pool, jobs, mail, logger, uploadLimitMb: env.UPLOAD_LIMIT_MB }),
   )
   app.use('/api', notFoundHandler)
   // the built app, with history-mode fallback

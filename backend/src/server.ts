@@ -4,6 +4,7 @@ import { loadEnv } from './env'
 import { createLogger } from './logger'
 import { startJobQueue } from './jobs/queue'
 import { importCommitJob, packBuildJob } from './jobs/handlers'
+import { createMailer } from './mail/transport'
 import { startSweeper } from './services/leases'
 
 const env = loadEnv()
@@ -12,12 +13,16 @@ const logger = createLogger(env.LOG_LEVEL)
 const { db, pool } = createDb(env.DATABASE_URL, 10, (err) =>
   logger.warn({ err: err.message }, 'database connection lost'),
 )
+const mail = createMailer(env, logger)
 const jobs = await startJobQueue(
   env.DATABASE_URL,
-  { 'import-commit': importCommitJob(db, pool, logger), 'pack-build': packBuildJob(db, logger) },
+  {
+    'import-commit': importCommitJob(db, pool, mail, logger),
+    'pack-build': packBuildJob(db, logger),
+  },
   logger,
 )
-const app = createApp({ db, pool, env, logger, jobs })
+const app = createApp({ db, pool, env, logger, jobs, mail })
 // Work that lost its server (a crash, a kill) shows as failed — interrupted within a minute.
 const stopSweeper = startSweeper(db, (err) => logger.warn({ err }, 'interrupted-work sweep failed'))
 

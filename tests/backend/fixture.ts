@@ -6,6 +6,7 @@ import { createApp } from '../../backend/src/app'
 import { createDb, type Db } from '../../backend/src/db/client'
 import { loadEnv } from '../../backend/src/env'
 import { createLogger } from '../../backend/src/logger'
+import { createMailer, type Mailer } from '../../backend/src/mail/transport'
 import { hashPassword } from '../../backend/src/auth/passport'
 import { holes, memberships, projects, users, type ProjectRole } from '../../schema/index'
 
@@ -16,6 +17,8 @@ export type Actor = (typeof actors)[number]
 export interface Fixture {
   db: Db
   app: Express
+  /** The app's mailer, for a test that sends a mail itself. */
+  mail: Mailer
   projectId: number
   otherProjectId: number
   holeId: number
@@ -34,7 +37,9 @@ export async function createFixture(envOverrides: Record<string, string> = {}): 
     SMTP_URL: 'smtp://127.0.0.1:9',
     ...envOverrides,
   })
-  const app = createApp({ db, pool, env, logger: createLogger('silent') })
+  const logger = createLogger('silent')
+  const mail = createMailer(env, logger)
+  const app = createApp({ db, pool, env, logger, mail })
   await wipe(db)
   const passwordHash = await hashPassword(PASSWORD)
   const userIds = {} as Record<Actor, number>
@@ -71,6 +76,7 @@ export async function createFixture(envOverrides: Record<string, string> = {}): 
   return {
     db,
     app,
+    mail,
     projectId: project.id,
     otherProjectId: other.id,
     holeId: hole.id,

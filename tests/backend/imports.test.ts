@@ -4,6 +4,7 @@ import { startJobQueue, type JobQueue } from '../../backend/src/jobs/queue'
 import { importCommitJob } from '../../backend/src/jobs/handlers'
 import { createApp } from '../../backend/src/app'
 import { createLogger } from '../../backend/src/logger'
+import { createMailer } from '../../backend/src/mail/transport'
 import { loadEnv } from '../../backend/src/env'
 import { createDb } from '../../backend/src/db/client'
 import { inject } from 'vitest'
@@ -241,13 +242,14 @@ describe('large imports run as background jobs', () => {
   beforeAll(async () => {
     const { db, pool } = createDb(inject('databaseUrl'), 4)
     const log = createLogger('silent')
+    const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' })
+    const mail = createMailer(env, log)
     jobs = await startJobQueue(
       inject('databaseUrl'),
-      { 'import-commit': importCommitJob(db, pool, log) },
+      { 'import-commit': importCommitJob(db, pool, mail, log) },
       log,
     )
-    const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' })
-    app = createApp({ db, pool, env, logger: log, jobs })
+    app = createApp({ db, pool, env, logger: log, jobs, mail })
     close = () => jobs.stop().then(() => pool.end())
   })
   afterAll(() => close())

@@ -4,6 +4,7 @@ import { createApp } from '../../backend/src/app'
 import { createDb } from '../../backend/src/db/client'
 import { loadEnv } from '../../backend/src/env'
 import { createLogger } from '../../backend/src/logger'
+import { createMailer } from '../../backend/src/mail/transport'
 import { clientFor, countRows } from './fixture'
 import { lasBytes, lasSuite } from './las-setup'
 
@@ -123,7 +124,8 @@ describe('POST /api/projects/:projectId/holes/:ctx.holeId/logs (edge cases)', ()
     process.env.UPLOAD_LIMIT_MB = '0.5'
     const { db, pool } = createDb(inject('databaseUrl'), 2)
     const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' })
-    const small = createApp({ db, pool, env, logger: createLogger('silent') })
+    const log = createLogger('silent')
+    const small = createApp({ db, pool, env, logger: log, mail: createMailer(env, log) })
     if (saved === undefined) delete process.env.UPLOAD_LIMIT_MB
     else process.env.UPLOAD_LIMIT_MB = saved
     try {

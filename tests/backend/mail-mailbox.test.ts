@@ -6,7 +6,7 @@ import { createDb } from '../../backend/src/db/client'
 import { loadEnv } from '../../backend/src/env'
 import { createLogger } from '../../backend/src/logger'
 import { startFakeSmtp, type FakeSmtp } from '../../backend/src/mail/fake-smtp'
-import { sendMail } from '../../backend/src/mail/transport'
+import { createMailer } from '../../backend/src/mail/transport'
 import { capturedMails } from '../../schema/index'
 import { clientFor, countRows, createFixture, type Fixture } from './fixture'
 
@@ -28,7 +28,7 @@ afterAll(async () => {
 describe('fake SMTP server', () => {
   it('startFakeSmtp() stores subject, text and HTML decoded (non-ASCII, long lines)', async () => {
     const long = `Dip 72° toward 191° — ${'limestone '.repeat(20)}`
-    await sendMail({
+    await fx.mail.send({
       to: 'ines.moreau@greyscar.test',
       subject: 'Écart de pendage – BH03',
       text: `${long}\nhttp://127.0.0.1:3000/x?token=${'z'.repeat(43)}\n`,
@@ -45,7 +45,7 @@ describe('fake SMTP server', () => {
 
 describe('GET and DELETE /api/dev/mailbox', () => {
   it('GET /api/dev/mailbox → 200 for an admin, newest first', async () => {
-    await sendMail({
+    await fx.mail.send({
       to: 'second@greyscar.test',
       subject: 'Second',
       text: 'two',
@@ -81,11 +81,14 @@ describe('GET and DELETE /api/dev/mailbox', () => {
   it('GET /api/dev/mailbox → 404 even for an admin when FAKE_SMTP=0', async () => {
     const { db, pool } = createDb(inject('databaseUrl'), 2)
     const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent', FAKE_SMTP: '0' })
+    const log = createLogger('silent')
+    const mailEnv = { ...env, SMTP_URL: `smtp://127.0.0.1:${fake.port}` }
     const app = createApp({
       db,
       pool,
-      env: { ...env, SMTP_URL: `smtp://127.0.0.1:${fake.port}` },
-      logger: createLogger('silent'),
+      env: mailEnv,
+      logger: log,
+      mail: createMailer(mailEnv, log),
     })
     const agent = request.agent(app)
     const csrf = (await agent.get('/api/auth/csrf')).body.data.csrfToken as string

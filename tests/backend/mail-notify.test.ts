@@ -3,8 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { inject } from 'vitest'
 import { createDb } from '../../backend/src/db/client'
 import { startFakeSmtp, type FakeSmtp } from '../../backend/src/mail/fake-smtp'
-import { notifyProject } from '../../backend/src/mail/notify'
-import { configureMail, mailSettings } from '../../backend/src/mail/transport'
+import { createLogger } from '../../backend/src/logger'
+import { createMailer } from '../../backend/src/mail/transport'
+import { notifyProject } from '../../backend/src/services/notify'
 import { capturedMails, users } from '../../schema/index'
 import { createFixture, type Fixture } from './fixture'
 
@@ -28,7 +29,7 @@ const recipients = async () =>
 
 describe('notifyProject()', () => {
   it('notifyProject() mails each member with a role once, plus member userIds; skips outsiders', async () => {
-    const sent = await notifyProject(fx.db, {
+    const sent = await notifyProject(fx.db, fx.mail, {
       projectId: fx.projectId,
       roles: ['engineer', 'lead'],
       userIds: [fx.userIds.lead, fx.userIds.viewer, fx.userIds.outsider],
@@ -57,7 +58,7 @@ describe('notifyProject()', () => {
   it('notifyProject() skips disabled users and sends nothing without roles or userIds', async () => {
     await fx.db.delete(capturedMails)
     await fx.db.update(users).set({ disabled: true }).where(eq(users.id, fx.userIds.engineer))
-    const sent = await notifyProject(fx.db, {
+    const sent = await notifyProject(fx.db, fx.mail, {
       projectId: fx.projectId,
       roles: ['engineer'],
       subject: 'Ready for checking',
@@ -65,26 +66,32 @@ describe('notifyProject()', () => {
     })
     expect(sent).toBe(0)
     expect(
-      await notifyProject(fx.db, { projectId: fx.projectId, subject: 'Nobody', text: 'x' }),
+      await notifyProject(fx.db, fx.mail, {
+        projectId: fx.projectId,
+        subject: 'Nobody',
+        text: 'x',
+      }),
     ).toBe(0)
     expect(await recipients()).toEqual([])
   })
 
   it('notifyProject() resolves to 0 and does not throw when the SMTP server is down', async () => {
-    const settings = mailSettings()
     const spare = await startFakeSmtp({ port: 0, db: fx.db })
     await spare.stop()
-    configureMail({ ...settings, SMTP_URL: `smtp://127.0.0.1:${spare.port}`, LOG_LEVEL: 'silent' })
-    try {
-      const sent = await notifyProject(fx.db, {
-        projectId: fx.projectId,
-        roles: ['lead', 'viewer'],
-        subject: 'Approved',
-        text: 'x',
-      })
-      expect(sent).toBe(0)
-    } finally {
-      configureMail({ ...settings, LOG_LEVEL: 'silent' })
-    }
+    const down = createMailer(
+      {
+        SMTP_URL: `smtp://127.0.0.1:${spare.port}`,
+        MAIL_FROM: 'Downdip <no-reply@downdip.test>',
+        APP_URL: 'http://127.0.0.1:3000',
+      },
+      createLogger('silent'),
+    )
+    const sent = await notifyProject(fx.db, down, {
+      projectId: fx.projectId,
+      roles: ['lead', 'viewer'],
+      subject: 'Approved',
+      text: 'x',
+    })
+    expect(sent).toBe(0)
   })
 })

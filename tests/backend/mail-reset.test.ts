@@ -6,6 +6,7 @@ import { createApp } from '../../backend/src/app'
 import { createDb } from '../../backend/src/db/client'
 import { loadEnv } from '../../backend/src/env'
 import { createLogger } from '../../backend/src/logger'
+import { createMailer } from '../../backend/src/mail/transport'
 import { startFakeSmtp, type FakeSmtp } from '../../backend/src/mail/fake-smtp'
 import { auditEvents, authTokens, capturedMails, users } from '../../schema/index'
 import { clientFor, countRows, createFixture, PASSWORD, type Fixture } from './fixture'
@@ -158,11 +159,14 @@ describe('POST /api/auth/reset-request and /api/auth/reset', () => {
       LOG_LEVEL: 'silent',
       LOGIN_ATTEMPTS_PER_WINDOW: '2',
     })
+    const log = createLogger('silent')
+    const mailEnv = { ...env, SMTP_URL: `smtp://127.0.0.1:${fake.port}` }
     const app = createApp({
       db,
       pool,
-      env: { ...env, SMTP_URL: `smtp://127.0.0.1:${fake.port}` },
-      logger: createLogger('silent'),
+      env: mailEnv,
+      logger: log,
+      mail: createMailer(mailEnv, log),
     })
     const agent = request.agent(app)
     const csrf = (await agent.get('/api/auth/csrf')).body.data.csrfToken as string

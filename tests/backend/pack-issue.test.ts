@@ -2,7 +2,7 @@ import { beforeAll, describe, expect, it } from 'vitest'
 import { eq } from 'drizzle-orm'
 import { intervals } from '../../schema/index'
 import { contentHashOf } from '../../backend/src/exports/hash'
-import { runPackBuild } from '../../backend/src/exports/pack-build'
+import { runPackBuild } from '../../backend/src/services/pack-build'
 import type { Client } from './fixture'
 import { packSuite } from './pack-setup'
 

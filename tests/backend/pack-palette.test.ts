@@ -4,7 +4,7 @@ import { netSvg } from '../../backend/src/exports/net-svg'
 import {
   setColour as screenColour,
   unassignedColour,
-} from '../../frontend/src/components/net/set-palette'
+} from '../../frontend/src/logic/net/set-palette'
 
 describe('one set palette for the screen and the pack', () => {
   it('colourOf() (pack nets) → the screen’s setColour() for sets 0..7, past the palette and none', () => {

@@ -4,6 +4,7 @@ import { createApp } from '../../backend/src/app'
 import { createDb } from '../../backend/src/db/client'
 import { loadEnv } from '../../backend/src/env'
 import { createLogger } from '../../backend/src/logger'
+import { createMailer } from '../../backend/src/mail/transport'
 import { startJobQueue, type JobQueue } from '../../backend/src/jobs/queue'
 import { packBuildJob } from '../../backend/src/jobs/handlers'
 import { clientFor, createFixture, type Client, type Fixture } from './fixture'
@@ -83,7 +84,7 @@ export function packSuite(options: { draft?: boolean } = {}) {
     const log = createLogger('silent')
     jobs = await startJobQueue(inject('databaseUrl'), { 'pack-build': packBuildJob(db, log) }, log)
     const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent' })
-    ctx.app = createApp({ db, pool, env, logger: log, jobs })
+    ctx.app = createApp({ db, pool, env, logger: log, jobs, mail: createMailer(env, log) })
     close = () => jobs.stop().then(() => pool.end())
     for (const who of ['lead', 'engineer', 'logger', 'viewer', 'outsider', 'anonymous'] as const)
       ctx.as[who] = await clientFor(ctx.app, who)

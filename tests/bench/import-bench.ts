@@ -13,6 +13,7 @@ import { createDb } from '../../backend/src/db/client'
 import { runMigrations } from '../../backend/src/db/migrate'
 import { loadEnv } from '../../backend/src/env'
 import { createLogger } from '../../backend/src/logger'
+import { createMailer } from '../../backend/src/mail/transport'
 import { hashPassword } from '../../backend/src/auth/passport'
 import { holes, memberships, projects, surveyStations, users } from '../../schema/index'
 
@@ -69,7 +70,8 @@ const env = loadEnv({
   LOG_LEVEL: 'silent',
   UPLOAD_LIMIT_MB: '100',
 })
-const app = createApp({ db, pool, env, logger: createLogger('silent') })
+const log = createLogger('silent')
+const app = createApp({ db, pool, env, logger: log, mail: createMailer(env, log) })
 const agent = request.agent(app)
 let csrf = (await agent.get('/api/auth/csrf')).body.data.csrfToken
 csrf = (

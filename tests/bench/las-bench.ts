@@ -18,6 +18,7 @@ import { createDb } from '../../backend/src/db/client'
 import { runMigrations } from '../../backend/src/db/migrate'
 import { loadEnv } from '../../backend/src/env'
 import { createLogger } from '../../backend/src/logger'
+import { createMailer } from '../../backend/src/mail/transport'
 import { hashPassword } from '../../backend/src/auth/passport'
 import { float8ArrayLiteral, readLas, type LasFile } from '../../backend/src/imports/las/index'
 import { holes, memberships, projects, users } from '../../schema/index'
@@ -260,7 +261,8 @@ const [hole] = await db
   .returning()
 try {
   const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'silent', DATABASE_URL: url })
-  const app = createApp({ db, pool, env, logger: createLogger('silent') })
+  const log = createLogger('silent')
+  const app = createApp({ db, pool, env, logger: log, mail: createMailer(env, log) })
   const agent = request.agent(app)
   let csrf = (await agent.get('/api/auth/csrf')).body.data.csrfToken as string
   const login = await agent

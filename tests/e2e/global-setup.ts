@@ -6,6 +6,7 @@ import { runMigrations } from '../../backend/src/db/migrate'
 import { seedDemo } from '../../backend/src/db/seed-demo'
 import { loadEnv } from '../../backend/src/env'
 import { createLogger } from '../../backend/src/logger'
+import { createMailer } from '../../backend/src/mail/transport'
 
 /**
  * Serves the built app and the API on a free loopback port, against a database of its own seeded
@@ -19,7 +20,8 @@ export default async function setup(project: TestProject) {
   await runMigrations(db)
   await seedDemo(db)
   const env = loadEnv({ ...process.env, NODE_ENV: 'test', LOG_LEVEL: 'warn', DATABASE_URL: url })
-  const app = createApp({ db, pool, env, logger: createLogger('warn') })
+  const logger = createLogger('warn')
+  const app = createApp({ db, pool, env, logger, mail: createMailer(env, logger) })
   const server = app.listen(0, '127.0.0.1')
   await new Promise<void>((resolve) => server.once('listening', resolve))
   const { port } = server.address() as AddressInfo

@@ -5,7 +5,7 @@ import {
   boxesOverlap,
   layoutCollarPlan,
   type CollarPoint,
-} from '../../frontend/src/components/project/collar-plan-layout'
+} from '../../frontend/src/logic/project/collar-plan-layout'
 
 // Frame 400 × 300 with margins 16/16/44/78 → inner 306 × 240 at (78, 16); 44 px padding each side
 // leaves 218 × 152 for the collars. Collars span 100 m E and 50 m N, so the scale is

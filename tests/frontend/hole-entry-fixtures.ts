@@ -15,6 +15,7 @@ export const project: LoggingProject = {
   steepThresholdDeg: 85,
   betaJumpDeg: 60,
   netProjection: 'equal-area',
+  fourEyes: true,
   version: 1,
   createdAt: '2026-01-01T00:00:00Z',
   updatedAt: '2026-01-01T00:00:00Z',
@@ -35,6 +36,8 @@ export const hole: Hole = {
   status: 'drilling',
   surveyRevision: 1,
   version: 1,
+  createdAt: '2026-01-01T00:00:00Z',
+  updatedAt: '2026-01-01T00:00:00Z',
 }
 /** A straight hole toward 000° plunging 60°. */
 export const station = (depth: number, plunge = 60): Station => ({
@@ -47,7 +50,9 @@ export const station = (depth: number, plunge = 60): Station => ({
   azimuthEntered: 0,
   declinationApplied: 0,
   convergenceApplied: 0,
+  plungeConvention: 'plunge-down',
   method: 'gyro',
+  surveyedOn: null,
   version: 1,
 })
 export const run: Run = {
@@ -61,7 +66,9 @@ export const run: Run = {
   fractureCount: 20,
   markConfidence: 'good',
   comment: '',
+  importId: null,
   version: 1,
+  createdAt: '2026-01-01T00:00:00Z',
   metrics: null,
 }
 
@@ -75,6 +82,7 @@ export function stored(fields: Partial<Structure>): Structure {
     alpha: 60,
     beta: 90,
     gamma: null,
+    gammaConvention: null,
     referenceLine: null,
     inputDip: null,
     inputDipDirection: null,
@@ -82,6 +90,7 @@ export function stored(fields: Partial<Structure>): Structure {
     pickDiameter: null,
     pickTroughAzimuth: null,
     pickReference: null,
+    pickAzimuthReference: null,
     pickQuality: null,
     dip: 41.40962210927087,
     dipDirection: 229.10660535086907,
@@ -106,6 +115,7 @@ export function stored(fields: Partial<Structure>): Structure {
     state: null,
     confidence: null,
     comment: '',
+    importId: null,
     version: 1,
     createdBy: 2,
     updatedBy: 2,

@@ -70,7 +70,14 @@ async function mountHeld(list: Structure[] = []) {
       else
         answer({
           status: 201,
-          body: { data: stored({ ...body, id: nextId++, beta: body.beta ?? null }) },
+          body: {
+            data: stored({
+              ...body,
+              type: body.type as Structure['type'],
+              id: nextId++,
+              beta: body.beta ?? null,
+            }),
+          },
         })
       await flushPromises()
     },

@@ -9,7 +9,7 @@ import {
   rowFromRun,
   runSequence,
   type RunRow,
-} from '../../frontend/src/components/hole/run-rows'
+} from '../../frontend/src/logic/hole/run-rows'
 import { useHoleRuns } from '../../frontend/src/composables/use-hole-runs'
 import { setCsrfToken } from '../../frontend/src/api/client'
 import type { Run } from '../../frontend/src/api/types'
@@ -28,7 +28,9 @@ const saved = (id: number, fields: Partial<Run>): Run => ({
   fractureCount: 4,
   markConfidence: 'good',
   comment: '',
+  importId: null,
   version: 1,
+  createdAt: '2026-01-01T00:00:00Z',
   metrics: null,
   ...fields,
 })

@@ -8,7 +8,7 @@ import {
   buildTrace,
   equalFrame,
   meanAzimuth,
-} from '../../frontend/src/components/hole/trace-geometry'
+} from '../../frontend/src/logic/hole/trace-geometry'
 
 /** A straight hole toward 090° plunging 30°: 100 m along it is 86.60 m east and 50 m down. */
 const straight = [

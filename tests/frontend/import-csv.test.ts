@@ -7,7 +7,7 @@ import {
   guessMapping,
   problemRows,
   sniffHeaders,
-} from '../../frontend/src/components/imports/import-problems'
+} from '../../frontend/src/logic/imports/import-problems'
 import { setCsrfToken } from '../../frontend/src/api/client'
 import { withPrimeVue } from './mount-options'
 

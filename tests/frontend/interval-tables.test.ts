@@ -12,7 +12,7 @@ import {
 import IntervalSetTable from '../../frontend/src/components/interval/IntervalSetTable.vue'
 import IntervalIntersectionTable from '../../frontend/src/components/interval/IntervalIntersectionTable.vue'
 import type { AnalysisSet, SetIntersection } from '../../frontend/src/api/interval-types'
-import { formatAngle, formatAzimuth, formatNumber } from '../../frontend/src/components/format'
+import { formatAngle, formatAzimuth, formatNumber } from '../../frontend/src/logic/format'
 import { withPrimeVue } from './mount-options'
 
 // [pub] Harrison & Hudson (2000), Engineering Rock Mechanics part 2, Q/A 7.10: borehole 136/55,

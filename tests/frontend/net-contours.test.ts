@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest'
 import { mount } from '@vue/test-utils'
 import { densityGrid } from '../../orient/index'
 import NetPlot from '../../frontend/src/components/net/NetPlot.vue'
-import { traceGrid } from '../../frontend/src/components/net/net-contours'
-import type { NetPole } from '../../frontend/src/components/net/net-types'
+import { traceGrid } from '../../frontend/src/logic/net/net-contours'
+import type { NetPole } from '../../frontend/src/logic/net/net-types'
 
 // A fixed data set: two clusters of poles on a deterministic lattice of offsets (no randomness).
 function fixedPoles(): NetPole[] {

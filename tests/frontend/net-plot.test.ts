@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { mount } from '@vue/test-utils'
 import NetPlot from '../../frontend/src/components/net/NetPlot.vue'
-import type { NetPole } from '../../frontend/src/components/net/net-types'
+import type { NetPole } from '../../frontend/src/logic/net/net-types'
 
 /** Centres of the dots in a pole path: each marker's sub-path starts `M x,y`. */
 function centres(d: string): [number, number][] {

@@ -12,8 +12,8 @@ import {
   topplingZone,
   wedgeZone,
   type ZoneSettings,
-} from '../../frontend/src/components/net/net-kinematic-zones'
-import { toScreen } from '../../frontend/src/components/net/net-geometry'
+} from '../../frontend/src/logic/net/net-kinematic-zones'
+import { toScreen } from '../../frontend/src/logic/net/net-geometry'
 
 // The zones drawn on the net hold exactly what orient's kinematic rules accept: planes on a lattice
 // are checked by kinematicChecks and by the drawn polygon; those within 1.5° of a limit are left

@@ -2,7 +2,8 @@ import { afterEach, describe, expect, it, vi } from 'vitest'
 import { defineComponent, h } from 'vue'
 import { flushPromises, mount } from '@vue/test-utils'
 import PacksDetail from '../../frontend/src/components/packs/PacksDetail.vue'
-import { usePacks } from '../../frontend/src/components/packs/use-packs'
+import { usePacks } from '../../frontend/src/composables/use-packs'
+import { usePackDetail } from '../../frontend/src/composables/use-pack-detail'
 import type { PackDetail } from '../../frontend/src/api/packs'
 import { setCsrfToken } from '../../frontend/src/api/client'
 import { mockFetch } from './fetch-mock'
@@ -145,5 +146,18 @@ describe('usePacks()', () => {
     const settled = calls.length
     await vi.advanceTimersByTimeAsync(3000)
     expect(calls.length).toBe(settled)
+  })
+})
+
+describe('usePackDetail()', () => {
+  it('usePackDetail() fileUrl → the file route with the name encoded; issueBlocked null when all approved', () => {
+    const d = usePackDetail(
+      () => '1',
+      () => pack,
+    )
+    expect(d.fileUrl('net upper.svg')).toBe(
+      `/api/projects/1/packs/${pack.id}/files/net%20upper.svg`,
+    )
+    expect(d.issueBlocked.value).toBeNull()
   })
 })

@@ -3,6 +3,7 @@ import { flushPromises, mount } from '@vue/test-utils'
 import PacksSelection from '../../frontend/src/components/packs/PacksSelection.vue'
 import PacksTable from '../../frontend/src/components/packs/PacksTable.vue'
 import type { PackSummary } from '../../frontend/src/api/packs'
+import { usePackSelection } from '../../frontend/src/composables/use-pack-selection'
 import type { Hole } from '../../frontend/src/api/types'
 import { mockFetch } from './fetch-mock'
 import { withPrimeVue } from './mount-options'
@@ -141,5 +142,25 @@ describe('PacksTable', () => {
       ...withPrimeVue,
     })
     expect(wrapper.get('[data-testid="pack-row-draft"]').text()).toBe('DRAFT')
+  })
+})
+
+describe('usePackSelection()', () => {
+  it('usePackSelection() a whole hole packs its every interval; naming one interval narrows it', async () => {
+    mockFetch(() => ({
+      body: { data: [interval(11, 'upper', 0, 40), interval(12, 'lower', 40, 90, 'draft')] },
+    }))
+    const s = usePackSelection(
+      () => '1',
+      () => [hole],
+    )
+    await flushPromises()
+    s.whole.value = false
+    expect(s.empty.value).toBe(true)
+    s.holeIds.value = [7]
+    expect(s.selection.value).toEqual({ holeIds: [7], intervalIds: [] })
+    expect(s.unapproved.value).toEqual(['GSQ-BH01 lower (draft)'])
+    s.intervalIds.value = [11]
+    expect(s.unapproved.value).toEqual([])
   })
 })

@@ -12,10 +12,13 @@ const project: Project = {
   crsEpsg: 27700,
   declinationMode: 'manual',
   declinationDeg: -1.35,
+  convergenceMode: 'manual',
   gridConvergenceDeg: 0.42,
   referenceLine: 'bottom',
   steepThresholdDeg: 85,
+  betaJumpDeg: 60,
   netProjection: 'equal-area',
+  fourEyes: true,
   version: 4,
   createdAt: '2025-01-01T00:00:00Z',
   updatedAt: '2025-01-01T00:00:00Z',
@@ -37,10 +40,12 @@ describe('ProjectSettingsEditor', () => {
       crsEpsg: 27700,
       declinationMode: 'manual',
       declinationDeg: -1.35,
+      convergenceMode: 'manual',
       gridConvergenceDeg: 0.42,
       referenceLine: 'bottom',
       steepThresholdDeg: 85,
       netProjection: 'equal-area',
+      fourEyes: true,
     })
   })
 

@@ -6,7 +6,7 @@ import {
   rowErrors,
   rowFromStation,
   type SurveyRow,
-} from '../../frontend/src/components/hole/survey-rows'
+} from '../../frontend/src/logic/hole/survey-rows'
 import { withPrimeVue } from './mount-options'
 
 const saved: SurveyRow = {
@@ -156,7 +156,9 @@ describe('rowFromStation()', () => {
       azimuthEntered: 189,
       declinationApplied: 2.2,
       convergenceApplied: 0,
+      plungeConvention: 'plunge-down',
       method: 'multishot',
+      surveyedOn: null,
       version: 1,
     })
     expect(row).toMatchObject({

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { mount } from '@vue/test-utils'
 import TrackFrame from '../../frontend/src/components/track/TrackFrame.vue'
-import { TRACK_HEADER } from '../../frontend/src/components/track/track-types'
+import { TRACK_HEADER } from '../../frontend/src/logic/track/track-types'
 import { useDepthAxis } from '../../frontend/src/composables/use-depth-axis'
 
 // happy-dom lays nothing out: the svg's box is at (0, 0), so clientY is the offset in the track.

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import { mount } from '@vue/test-utils'
 import TrackTadpoles from '../../frontend/src/components/track/TrackTadpoles.vue'
-import { dipScale, UNORIENTED_LANE } from '../../frontend/src/components/track/tadpole-layout'
-import { TAIL_LENGTH } from '../../frontend/src/components/track/structure-symbols'
-import type { TrackStructure } from '../../frontend/src/components/track/track-types'
+import { dipScale, UNORIENTED_LANE } from '../../frontend/src/logic/track/tadpole-layout'
+import { TAIL_LENGTH } from '../../frontend/src/logic/track/structure-symbols'
+import type { TrackStructure } from '../../frontend/src/logic/track/track-types'
 
 const s = (
   id: number,

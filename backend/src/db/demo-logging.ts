@@ -7,7 +7,7 @@ import {
   type Plane,
 } from '../../../orient/index'
 import type { RunInputT, StructureInputT } from '../../../schema/index'
-import { seededRandom, seedOf } from './random'
+import { demoRandom } from './random'
 
 /**
  * Invented structure of the Greyscar Quarry demo: bedding and joint sets per depth domain, each a
@@ -107,7 +107,7 @@ export function demoLogging(
   finalDepth: number,
   stations: readonly { depth: number; azimuth: number; plunge: number }[],
 ): DemoLogging {
-  const random = seededRandom(seedOf(`${holeName}:logging`))
+  const random = demoRandom(`${holeName}:logging`)
   const runs: RunInputT[] = []
   const structures: StructureInputT[] = []
   for (let from = 0; from < finalDepth - 1e-9; from += 3) {

@@ -1,6 +1,6 @@
 import { holeAt } from '../../../orient/index'
 import type { StructureInputT } from '../../../schema/index'
-import { seededRandom, seedOf } from './random'
+import { demoRandom } from './random'
 
 interface Station {
   depth: number
@@ -17,7 +17,7 @@ export function demoLasFile(
   finalDepth: number,
   stations: readonly Station[],
 ): string {
-  const random = seededRandom(seedOf(`${holeName}:las`))
+  const random = demoRandom(`${holeName}:las`)
   const step = 0.1
   const start = 1.0
   const lines: string[] = []
@@ -74,7 +74,7 @@ export function demoLasFile(
  * H = D·tan(90° − alpha) and trough = beta + 180 (beta from the bottom of hole).
  */
 export function demoPicks(holeName: string, structures: readonly StructureInputT[]) {
-  const random = seededRandom(seedOf(`${holeName}:picks`))
+  const random = demoRandom(`${holeName}:picks`)
   const diameter = 96
   return structures
     .filter((s) => s.alpha !== undefined && s.beta !== undefined && s.alpha > 3 && random() < 0.8)

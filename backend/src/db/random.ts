@@ -1,14 +1,4 @@
-/** mulberry32: a small seeded PRNG, so the demo is the same on every machine. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
+import { mulberry32 } from '../../../orient/index'
 
 /** A stable seed from a name (FNV-1a), so each demo hole draws its own sequence. */
 export function seedOf(name: string): number {
@@ -16,3 +6,9 @@ export function seedOf(name: string): number {
   for (let i = 0; i < name.length; i++) h = Math.imul(h ^ name.charCodeAt(i), 0x01000193)
   return h >>> 0
 }
+
+/**
+ * The demo's draws for one name: orient's seeded generator (the one seeded clustering uses), so
+ * the demo is the same on every machine and every run.
+ */
+export const demoRandom = (name: string): (() => number) => mulberry32(seedOf(name))

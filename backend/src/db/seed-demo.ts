@@ -21,7 +21,8 @@ import type { Db, Executor, Tx } from './client'
 import { demoLasFile, demoPicks } from './demo-logs'
 import { commitLasImport, previewLasImport } from '../services/logs'
 import { DEMO_PASSWORD, demoHoles, demoProject, demoUsers, type DemoHole } from './demo-data'
-import { seedOf, seededRandom } from './random'
+import { demoRandom } from './random'
+import type { StructureInputRow } from './structure-columns'
 
 /**
  * Seeds the demo idempotently: rows that exist (by e-mail, project code, hole name) are left as
@@ -102,7 +103,7 @@ async function seedPicks(tx: Tx, project: typeof projects.$inferSelect, demo: De
   const picks = demoPicks(demo.name, core)
   for (let i = 0; i < picks.length; i += 500) {
     await tx.insert(structures).values(
-      picks.slice(i, i + 500).map((p) => ({
+      picks.slice(i, i + 500).map((p): StructureInputRow => ({
         holeId: found.hole.id,
         depth: p.depth,
         type: p.type,
@@ -158,13 +159,12 @@ async function seedLogging(tx: Tx, project: typeof projects.$inferSelect, demo: 
   const { runs, structures: items } = demoLogging(demo.name, hole.finalDepth, stations)
   await tx.insert(coreRuns).values(runs.map((r) => ({ ...r, holeId: hole.id })))
   for (let i = 0; i < items.length; i += 500) {
-    await tx
-      .insert(structures)
-      .values(
-        items
-          .slice(i, i + 500)
-          .map(({ dip: _d, dipDirection: _dd, ...s }) => ({ ...s, holeId: hole.id })),
-      )
+    await tx.insert(structures).values(
+      items.slice(i, i + 500).map(({ dip: _d, dipDirection: _dd, ...s }): StructureInputRow => ({
+        ...s,
+        holeId: hole.id,
+      })),
+    )
   }
   await recomputeStructures(tx, project, hole)
 }
@@ -175,7 +175,7 @@ async function seedSurvey(
   hole: typeof holes.$inferSelect,
   demo: DemoHole,
 ) {
-  const random = seededRandom(seedOf(demo.name))
+  const random = demoRandom(demo.name)
   const stations = []
   for (let depth = 0; depth <= demo.finalDepth; depth += 30) {
     const trueAzimuth = demo.plannedAzimuth + demo.azimuthDrift * depth + (random() - 0.5) * 0.6

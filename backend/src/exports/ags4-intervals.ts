@@ -1,6 +1,6 @@
 import { INTERVAL_GROUP } from './ags4-dictionary'
 import { dp, headingsOf, type AgsTable } from './ags4-format'
-import type { PackData } from './pack-data'
+import type { PackData } from './pack-types'
 
 /** AGS4 DT in the UNIT `yyyy-mm-ddThh:mm`, UTC; blank when the step was not taken. */
 const dateTime = (at: Date | null) => (at ? at.toISOString().slice(0, 16) : '')

@@ -1,4 +1,4 @@
-import type { PackData } from './pack-data'
+import type { PackData } from './pack-types'
 import { dp, headingsOf, type AgsTable } from './ags4-format'
 import { SET_GROUP } from './ags4-dictionary'
 

@@ -10,7 +10,7 @@ import {
   setTable,
 } from './ags4-tables'
 import { intervalTable } from './ags4-intervals'
-import type { PackData } from './pack-data'
+import type { PackData } from './pack-types'
 import { CAUTIONS } from './cautions'
 import { DRAFT_MARK } from './sign-off'
 

@@ -1,6 +1,6 @@
 import Papa from 'papaparse'
 import { setColour } from '../../../schema/vocabulary'
-import type { PackData } from './pack-data'
+import type { PackData } from './pack-types'
 import { neutraliseCell, neutraliseLine } from './cell-safety'
 
 type Cell = string | number | null | undefined

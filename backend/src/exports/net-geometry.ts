@@ -7,7 +7,7 @@ import {
   type NetProjection,
 } from '../../../orient/index'
 import { setColour } from '../../../schema/vocabulary'
-import type { Analysis } from './pack-data'
+import type { Analysis } from './pack-types'
 
 /** One interval's net in unit-radius coordinates (x east, y north), from orient's projection. */
 export interface NetFigure {

@@ -1,5 +1,5 @@
 import type { Hole } from '../../../schema/index'
-import type { PackData } from './pack-data'
+import type { PackData } from './pack-types'
 import { PAGE, type Pdf } from './pdf-kit'
 
 /**

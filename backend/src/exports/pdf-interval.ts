@@ -1,5 +1,5 @@
 import type { NetFigure } from './net-geometry'
-import type { PackData, PackInterval } from './pack-data'
+import type { PackData, PackInterval } from './pack-types'
 import { drawNet } from './pdf-net'
 import { CONTENT_WIDTH, drawTable, PAGE, type Column, type Pdf } from './pdf-kit'
 import { settingsText, signOffText } from './sign-off'

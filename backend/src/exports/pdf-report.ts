@@ -1,7 +1,7 @@
 import type { NetProjection } from '../../../orient/index'
 import { CAUTIONS } from './cautions'
 import { netFigure } from './net-geometry'
-import type { PackData } from './pack-data'
+import type { PackData } from './pack-types'
 import { drawDepthView } from './pdf-depth'
 import { createPdf, pdfBytes, PAGE, type Pdf, type PdfFont } from './pdf-kit'
 import { declinationLabel, drawIntervalPage } from './pdf-interval'

@@ -1,4 +1,4 @@
-import type { PackData } from './pack-data'
+import type { PackData } from './pack-types'
 import { drawTable, PAGE, type Pdf } from './pdf-kit'
 import { stampOf } from './sign-off'
 

@@ -1,4 +1,4 @@
-import { runMetrics } from '../../../orient/index'
+import { runMetricsOf } from '../../../orient/index'
 import type { CoreRun } from '../../../schema/index'
 
 export interface RunSummary {
@@ -18,14 +18,7 @@ export function intervalRunSummary(runs: readonly CoreRun[], from: number, to: n
   for (const run of runs) {
     const overlap = Math.min(run.toDepth, to) - Math.max(run.fromDepth, from)
     if (overlap <= 0) continue
-    const m = runMetrics({
-      from: run.fromDepth,
-      to: run.toDepth,
-      recovered: run.recovered,
-      solid: run.solid,
-      rqdLength: run.rqdLength,
-      fractures: run.fractureCount,
-    })
+    const m = runMetricsOf(run)
     if (!m) continue
     length += overlap
     rqdSum += m.rqd * overlap

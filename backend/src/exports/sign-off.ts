@@ -1,51 +1,14 @@
-import { inArray } from 'drizzle-orm'
-import { users, type Interval } from '../../../schema/index'
-import type { Executor } from '../db/client'
+import type { Interval } from '../../../schema/index'
 import type { AnalysisSettings } from '../services/intervals'
 import { CAUTIONS } from './cautions'
-import type { PackData } from './pack-data'
+import type { PackData, SignOff } from './pack-types'
 
 /** The words every page and file of a pack holding unapproved intervals carries. */
 export const DRAFT_MARK = 'DRAFT — not for design'
 
-/** Who checked and who approved an interval, and when (null where that step was not taken). */
-export interface SignOff {
-  checkedBy: string | null
-  checkedAt: Date | null
-  approvedBy: string | null
-  approvedAt: Date | null
-}
-
 /** Only approved intervals can be issued; issued ones were approved first. */
 export const isApproved = (i: Pick<Interval, 'status'>) =>
   i.status === 'approved' || i.status === 'issued'
-
-/** Each interval's sign-off with the checker's and approver's names, read in one query. */
-export async function signOffsOf(
-  db: Executor,
-  rows: Interval[],
-): Promise<{ byInterval: Map<number, SignOff>; names: [number, string][] }> {
-  const ids = [...new Set(rows.flatMap((i) => [i.checkedBy, i.approvedBy]))].filter(
-    (id): id is number => id !== null,
-  )
-  const found = ids.length
-    ? await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, ids))
-    : []
-  const names = new Map(found.map((u) => [u.id, u.name]))
-  const nameOf = (id: number | null) => (id === null ? null : (names.get(id) ?? `user ${id}`))
-  const byInterval = new Map(
-    rows.map((i) => [
-      i.id,
-      {
-        checkedBy: nameOf(i.checkedBy),
-        checkedAt: i.checkedAt,
-        approvedBy: nameOf(i.approvedBy),
-        approvedAt: i.approvedAt,
-      },
-    ]),
-  )
-  return { byInterval, names: [...names].sort((a, b) => a[0] - b[0]) }
-}
 
 /** A stamp in UTC to the minute: `2026-12-01 10:05 UTC`. */
 export const stampOf = (at: Date | null) =>

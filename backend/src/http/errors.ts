@@ -1,7 +1,17 @@
+import type { z } from 'zod'
+
 /** One error vocabulary for the API: a stable code, an HTTP status, optional field details. */
 export interface ErrorDetail {
   path: string
   message: string
+}
+
+/** Turns zod issues into `{ path, message }` with the request part first (`body.stations.3.depth`). */
+export function zodDetails(part: string, error: z.ZodError): ErrorDetail[] {
+  return error.issues.map((issue) => ({
+    path: [part, ...issue.path.map(String)].join('.'),
+    message: issue.message,
+  }))
 }
 
 export class ApiError extends Error {

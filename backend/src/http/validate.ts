@@ -1,6 +1,8 @@
 import type { RequestHandler } from 'express'
 import type { z } from 'zod'
-import { badRequest, type ErrorDetail } from './errors'
+import { badRequest, zodDetails, type ErrorDetail } from './errors'
+
+export { zodDetails } from './errors'
 
 interface Schemas {
   params?: z.ZodType
@@ -10,14 +12,6 @@ interface Schemas {
 
 export type Input<S extends Schemas> = {
   [K in keyof S]: S[K] extends z.ZodType ? z.output<S[K]> : never
-}
-
-/** Turns zod issues into `{ path, message }` with the request part first (`body.stations.3.depth`). */
-export function zodDetails(part: string, error: z.ZodError): ErrorDetail[] {
-  return error.issues.map((issue) => ({
-    path: [part, ...issue.path.map(String)].join('.'),
-    message: issue.message,
-  }))
 }
 
 /** Paths of every string holding a NUL (PostgreSQL text cannot store one), `query.entity` style. */

@@ -1,5 +1,10 @@
 import { z } from 'zod'
-import type { RunInputT, StationInputT, StructureInputT } from '../../../schema/index'
+import type {
+  CsvImportKind,
+  RunInputT,
+  StationInputT,
+  StructureInputT,
+} from '../../../schema/index'
 import { badRequest } from '../http/errors'
 import { zodDetails } from '../http/validate'
 import { readCsvTable, type CsvTable } from './csv-table'
@@ -16,8 +21,7 @@ import { StructureImportOptions, structureFieldSpecs, structureRowSchema } from 
 import { PickImportOptions, pickFieldSpecs, pickRowSchema, type PickRow } from './kinds/picks'
 import { SurveyImportOptions, surveyFieldSpecs, surveyRowSchema } from './kinds/survey'
 
-export const csvImportKinds = ['structures', 'runs', 'survey', 'picks'] as const
-export type CsvImportKind = (typeof csvImportKinds)[number]
+export { csvImportKinds, type CsvImportKind } from '../../../schema/index'
 
 interface KindRows {
   picks: PickRow

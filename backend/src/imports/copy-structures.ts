@@ -2,48 +2,43 @@ import { Readable } from 'node:stream'
 import { pipeline } from 'node:stream/promises'
 import type { PoolClient } from 'pg'
 import { from as copyFrom } from 'pg-copy-streams'
-import type { StructureInputT } from '../../../schema/index'
+import { structures, type StructureInputT } from '../../../schema/index'
 import type { StructureComputed } from '../../../orient/index'
+import {
+  computedKeys,
+  computedValues,
+  type ComputedKey,
+  type StructureInputRow,
+} from '../db/structure-columns'
 
-/** Columns written by COPY, in order; everything else takes its default. */
-const columns = [
-  'hole_id',
+/** The input and provenance columns COPY writes; the computed ones follow; the rest take defaults. */
+const inputKeys = [
+  'holeId',
   'depth',
   'type',
   'source',
   'alpha',
   'beta',
   'gamma',
-  'reference_line',
-  'input_dip',
-  'input_dip_direction',
-  'dip',
-  'dip_direction',
-  'pole_trend',
-  'pole_plunge',
-  'hole_trend',
-  'hole_plunge',
-  'east',
-  'north',
-  'elevation',
-  'terzaghi_weight',
-  'declination_applied',
-  'survey_revision',
-  'flags',
+  'referenceLine',
+  'inputDip',
+  'inputDipDirection',
   'roughness',
   'jrc',
-  'aperture_mm',
-  'infill_type',
-  'infill_thickness_mm',
+  'apertureMm',
+  'infillType',
+  'infillThicknessMm',
   'persistence',
-  'wall_weathering',
+  'wallWeathering',
   'state',
   'confidence',
   'comment',
-  'import_id',
-  'created_by',
-  'updated_by',
-] as const
+  'importId',
+  'createdBy',
+  'updatedBy',
+] as const satisfies readonly (keyof StructureInputRow)[]
+type CopyKey = (typeof inputKeys)[number] | ComputedKey
+const copyKeys: readonly CopyKey[] = [...inputKeys, ...computedKeys]
 
 /** One value in COPY text format: \N for null, backslash escapes for tab, newline and backslash. */
 function field(v: unknown): string {
@@ -62,6 +57,40 @@ export interface CopyContext {
   userId: number
 }
 
+/** One structure as COPY writes it, each value under its column's key (a true orientation as input). */
+function copyRow(
+  ctx: CopyContext,
+  s: StructureInputT,
+  c: StructureComputed,
+): Record<CopyKey, unknown> {
+  return {
+    holeId: ctx.holeId,
+    depth: s.depth,
+    type: s.type,
+    source: s.source ?? 'core',
+    alpha: s.alpha,
+    beta: s.beta,
+    gamma: s.gamma,
+    referenceLine: s.referenceLine,
+    inputDip: s.source === 'true' ? s.dip : null,
+    inputDipDirection: s.source === 'true' ? s.dipDirection : null,
+    roughness: s.roughness,
+    jrc: s.jrc,
+    apertureMm: s.apertureMm,
+    infillType: s.infillType,
+    infillThicknessMm: s.infillThicknessMm,
+    persistence: s.persistence,
+    wallWeathering: s.wallWeathering,
+    state: s.state,
+    confidence: s.confidence,
+    comment: s.comment ?? '',
+    importId: ctx.importId,
+    createdBy: ctx.userId,
+    updatedBy: ctx.userId,
+    ...computedValues(c, ctx.surveyRevision),
+  }
+}
+
 /**
  * Streams structures into the table with COPY on the transaction's own connection, reporting
  * progress every `every` rows. Much faster than INSERT for large imports.
@@ -77,47 +106,8 @@ export async function copyStructures(
   async function* lines() {
     let chunk = ''
     for (let i = 0; i < inputs.length; i++) {
-      const s = inputs[i]
-      const c = computed[i]
-      const values = [
-        ctx.holeId,
-        s.depth,
-        s.type,
-        s.source ?? 'core',
-        s.alpha,
-        s.beta,
-        s.gamma,
-        s.referenceLine,
-        s.source === 'true' ? s.dip : null,
-        s.source === 'true' ? s.dipDirection : null,
-        c.dip,
-        c.dipDirection,
-        c.poleTrend,
-        c.polePlunge,
-        c.holeTrend,
-        c.holePlunge,
-        c.east,
-        c.north,
-        c.elevation,
-        c.terzaghiWeight,
-        c.declinationApplied,
-        ctx.surveyRevision,
-        c.flags,
-        s.roughness,
-        s.jrc,
-        s.apertureMm,
-        s.infillType,
-        s.infillThicknessMm,
-        s.persistence,
-        s.wallWeathering,
-        s.state,
-        s.confidence,
-        s.comment ?? '',
-        ctx.importId,
-        ctx.userId,
-        ctx.userId,
-      ]
-      chunk += values.map(field).join('\t') + '\n'
+      const row = copyRow(ctx, inputs[i], computed[i])
+      chunk += copyKeys.map((k) => field(row[k])).join('\t') + '\n'
       if ((i + 1) % 1000 === 0) {
         yield chunk
         chunk = ''
@@ -126,6 +116,7 @@ export async function copyStructures(
     }
     if (chunk) yield chunk
   }
-  const sink = client.query(copyFrom(`copy structures (${columns.join(', ')}) from stdin`))
+  const columns = copyKeys.map((k) => structures[k].name).join(', ')
+  const sink = client.query(copyFrom(`copy structures (${columns}) from stdin`))
   await pipeline(Readable.from(lines()), sink)
 }

@@ -2,19 +2,20 @@ import type pg from 'pg'
 import type { Db } from '../db/client'
 import { ApiError } from '../http/errors'
 import type { Logger } from '../logger'
+import type { Mailer } from '../mail/transport'
 import { commitImport } from '../services/import-commit'
-import { runPackBuild } from '../exports/pack-build'
+import { runPackBuild } from '../services/pack-build'
 import type { JobHandler } from './queue'
 
 /**
  * Commits a queued import. A refusal (row errors, overlaps) is final: the import reads `failed`
  * with the reason and the job ends. Anything else (database gone) is thrown for pg-boss to retry.
  */
-export function importCommitJob(db: Db, pool: pg.Pool, logger: Logger): JobHandler {
+export function importCommitJob(db: Db, pool: pg.Pool, mail: Mailer, logger: Logger): JobHandler {
   return async (data) => {
     const importId = String(data.importId)
     try {
-      await commitImport(db, pool, importId, {
+      await commitImport(db, mail, pool, importId, {
         fromJob: true,
         actorId: Number(data.actorId),
         confirmDuplicate: data.confirmDuplicate === true,

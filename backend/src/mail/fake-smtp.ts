@@ -19,7 +19,7 @@ export interface FakeSmtpOptions {
 /**
  * The local fake SMTP server: loopback only, no auth, no TLS. Every message it accepts is stored
  * in captured_mails (read by the dev mailbox) before the sender hears 250, so a test that awaits
- * sendMail finds the row.
+ * a send finds the row.
  */
 export function startFakeSmtp({ port, db, onError }: FakeSmtpOptions): Promise<FakeSmtp> {
   const server = new SMTPServer({

@@ -1,6 +1,6 @@
 import nodemailer, { type Transporter } from 'nodemailer'
-import { loadEnv, type Env } from '../env'
-import { createLogger, type Logger } from '../logger'
+import type { Env } from '../env'
+import type { Logger } from '../logger'
 
 export type MailSettings = Pick<Env, 'SMTP_URL' | 'MAIL_FROM' | 'APP_URL'>
 
@@ -11,51 +11,38 @@ export interface OutgoingMail {
   html: string
 }
 
-let configured: MailSettings | null = null
-let logger: Logger | null = null
-const transports = new Map<string, Transporter>()
-
 /**
- * Records the app's mail settings. The mail routers call it while createApp builds them, so
- * notifyProject (which only receives the db) sends through the same server as the routes.
+ * The app's way out for mail, built once (server.ts, the test fixtures) and handed to createApp,
+ * which passes it to every service that sends mail.
  */
-export function configureMail(env: MailSettings & Pick<Env, 'LOG_LEVEL'>): void {
-  configured = { SMTP_URL: env.SMTP_URL, MAIL_FROM: env.MAIL_FROM, APP_URL: env.APP_URL }
-  logger = createLogger(env.LOG_LEVEL)
+export interface Mailer {
+  /** Sends one mail; rejects when the SMTP server refuses it or cannot be reached. */
+  send: (mail: OutgoingMail) => Promise<void>
+  /** An absolute link into the app; paths are taken relative to APP_URL. */
+  link: (pathOrUrl: string) => string
+  /** Where mail failures are reported (they never fail the request that caused the mail). */
+  logger: Logger
 }
 
-/** Where mail failures are reported (they never fail the request that caused the mail). */
-export function mailLogger(): Logger {
-  logger ??= createLogger(loadEnv().LOG_LEVEL)
-  return logger
-}
-
-export function mailSettings(): MailSettings {
-  return configured ?? loadEnv()
-}
-
-function transportFor(url: string): Transporter {
-  let transport = transports.get(url)
-  if (!transport) {
-    // Short timeouts: a request that sends mail must not hang for minutes when mail is down.
-    transport = nodemailer.createTransport({
-      url,
+export function createMailer(settings: MailSettings, logger: Logger): Mailer {
+  let transport: Transporter | undefined
+  // Short timeouts: a request that sends mail must not hang for minutes when mail is down.
+  const transportOf = () =>
+    (transport ??= nodemailer.createTransport({
+      url: settings.SMTP_URL,
       connectionTimeout: 5_000,
       greetingTimeout: 5_000,
       socketTimeout: 10_000,
-    })
-    transports.set(url, transport)
+    }))
+  return {
+    send: async (mail) => {
+      await transportOf().sendMail({ from: settings.MAIL_FROM, ...mail })
+    },
+    link: (pathOrUrl) => {
+      if (/^https?:\/\//.test(pathOrUrl)) return pathOrUrl
+      const base = settings.APP_URL.replace(/\/+$/, '')
+      return base + (pathOrUrl.startsWith('/') ? '' : '/') + pathOrUrl
+    },
+    logger,
   }
-  return transport
-}
-
-/** Sends one mail; rejects when the SMTP server refuses it or cannot be reached. */
-export async function sendMail(mail: OutgoingMail, settings = mailSettings()): Promise<void> {
-  await transportFor(settings.SMTP_URL).sendMail({ from: settings.MAIL_FROM, ...mail })
-}
-
-/** An absolute link into the app; paths are taken relative to APP_URL. */
-export function appLink(pathOrUrl: string, settings = mailSettings()): string {
-  if (/^https?:\/\//.test(pathOrUrl)) return pathOrUrl
-  return settings.APP_URL.replace(/\/+$/, '') + (pathOrUrl.startsWith('/') ? '' : '/') + pathOrUrl
 }

@@ -3,13 +3,12 @@ import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
 import type { PassportStatic } from 'passport'
 import { z } from 'zod'
 import type { Db } from '../db/client'
-import type { Env } from '../env'
 import { csrfTokenFor, newCsrfToken } from '../auth/csrf'
 import { ApiError, unauthorized } from '../http/errors'
 import { inputOf, validate } from '../http/validate'
-import { requestPasswordReset, resetPassword } from '../mail/password-reset'
-import { configureMail } from '../mail/transport'
+import type { Mailer } from '../mail/transport'
 import { membershipsOf } from '../services/memberships'
+import { requestPasswordReset, resetPassword } from '../services/password-reset'
 
 const LoginBody = z.object({
   email: z.string().trim().email().max(254),
@@ -104,13 +103,12 @@ const ResetBody = z
   .strict()
 
 /** /api/auth/reset-request and /api/auth/reset: a forgotten password, by a mailed link. */
-export function passwordResetRouter(db: Db, env: Env): Router {
-  configureMail(env)
+export function passwordResetRouter(db: Db, mail: Mailer, attemptsPerWindow: number): Router {
   const router = Router()
   const limiter = (skipSuccessfulRequests: boolean) =>
     rateLimit({
       windowMs: 15 * 60 * 1000,
-      limit: env.LOGIN_ATTEMPTS_PER_WINDOW,
+      limit: attemptsPerWindow,
       skipSuccessfulRequests,
       standardHeaders: 'draft-8',
       legacyHeaders: false,
@@ -129,7 +127,7 @@ export function passwordResetRouter(db: Db, env: Env): Router {
     async (_req, res) => {
       const { body } = inputOf(res, { body: ResetRequestBody })
       const started = Date.now()
-      await requestPasswordReset(db, body.email)
+      await requestPasswordReset(db, mail, body.email)
       // A floor on the answer time hides the extra writes made when the account exists.
       const wait = RESET_ANSWER_FLOOR_MS - (Date.now() - started)
       if (wait > 0) await new Promise((resolve) => setTimeout(resolve, wait))

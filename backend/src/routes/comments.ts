@@ -1,12 +1,12 @@
 import { Router } from 'express'
 import { CommentBody, CommentQuery } from '../../../schema/index'
-import type { Db } from '../db/client'
 import { projectLocals, requireRole } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
+import type { ProjectDeps } from './deps'
 import { addComment, listComments } from '../services/comments'
 
 /** /api/projects/:projectId/comments: on structures and intervals; members read, loggers and up write. */
-export function commentsRouter(db: Db): Router {
+export function commentsRouter({ db, mail }: Pick<ProjectDeps, 'db' | 'mail'>): Router {
   const router = Router({ mergeParams: true })
   router.get('/', validate({ query: CommentQuery }), async (_req, res) => {
     const { query } = inputOf(res, { query: CommentQuery })
@@ -18,6 +18,7 @@ export function commentsRouter(db: Db): Router {
     const { body } = inputOf(res, { body: CommentBody })
     const row = await addComment(
       db,
+      mail,
       { id: req.user!.id, name: req.user!.name },
       projectLocals(res).project.id,
       body,

@@ -1,68 +1,32 @@
 import { Router } from 'express'
-import { and, asc, eq } from 'drizzle-orm'
-import { DomainBody, domains, IdParam } from '../../../schema/index'
+import { DomainBody, IdParam } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { projectLocals, requireRole } from '../auth/guards'
-import { notFound } from '../http/errors'
 import { inputOf, validate } from '../http/validate'
-import { audit } from '../services/audit'
+import { createDomain, listDomains, updateDomain } from '../services/domains'
 
 const DomainParams = IdParam('domainId')
+const DomainPatch = DomainBody.partial()
 
 /** /api/projects/:projectId/domains: structural/geotechnical domains gathering intervals. */
 export function domainsRouter(db: Db): Router {
   const router = Router({ mergeParams: true })
   router.get('/', async (_req, res) => {
-    const rows = await db
-      .select()
-      .from(domains)
-      .where(eq(domains.projectId, projectLocals(res).project.id))
-      .orderBy(asc(domains.name))
-    res.json({ data: rows })
+    res.json({ data: await listDomains(db, projectLocals(res).project.id) })
   })
   router.post('/', requireRole('engineer'), validate({ body: DomainBody }), async (req, res) => {
     const { body } = inputOf(res, { body: DomainBody })
     const projectId = projectLocals(res).project.id
-    const row = await db.transaction(async (tx) => {
-      const [d] = await tx
-        .insert(domains)
-        .values({ ...body, projectId })
-        .returning()
-      await audit(tx, {
-        projectId,
-        userId: req.user!.id,
-        entity: 'domain',
-        entityId: d.id,
-        action: 'create',
-        after: d,
-      })
-      return d
-    })
-    res.status(201).json({ data: row })
+    res.status(201).json({ data: await createDomain(db, req.user!.id, projectId, body) })
   })
   router.patch(
     '/:domainId',
     requireRole('engineer'),
-    validate({ params: DomainParams, body: DomainBody.partial() }),
+    validate({ params: DomainParams, body: DomainPatch }),
     async (req, res) => {
-      const { params, body } = inputOf(res, { params: DomainParams, body: DomainBody.partial() })
+      const { params, body } = inputOf(res, { params: DomainParams, body: DomainPatch })
       const projectId = projectLocals(res).project.id
-      const row = await db.transaction(async (tx) => {
-        const where = and(eq(domains.id, params.domainId), eq(domains.projectId, projectId))
-        const [before] = await tx.select().from(domains).where(where)
-        if (!before) throw notFound('Domain')
-        const [after] = await tx.update(domains).set(body).where(where).returning()
-        await audit(tx, {
-          projectId,
-          userId: req.user!.id,
-          entity: 'domain',
-          entityId: after.id,
-          action: 'update',
-          before,
-          after,
-        })
-        return after
-      })
+      const row = await updateDomain(db, req.user!.id, projectId, params.domainId, body)
       res.json({ data: row })
     },
   )

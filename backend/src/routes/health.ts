@@ -1,7 +1,7 @@
 import { Router } from 'express'
-import { sql } from 'drizzle-orm'
 import type { Db } from '../db/client'
 import { databaseUnavailable } from '../http/error-handler'
+import { databaseAnswers } from '../services/health'
 
 /**
  * GET /api/health: the app answers and the database does too; 503 naming the database while it is
@@ -10,22 +10,15 @@ import { databaseUnavailable } from '../http/error-handler'
 export function healthRouter(db: Db): Router {
   const router = Router()
   router.get('/', async (_req, res) => {
-    let timer: NodeJS.Timeout | undefined
-    const timeout = new Promise<never>((_, reject) => {
-      timer = setTimeout(() => reject(new Error('timeout exceeded when trying to connect')), 2000)
-    })
-    try {
-      await Promise.race([db.execute(sql`select 1`), timeout])
+    if (await databaseAnswers(db, 2000)) {
       res.json({ data: { ok: true, database: true } })
-    } catch {
-      const e = databaseUnavailable()
-      res.status(503).json({
-        data: { ok: false, database: false },
-        error: { code: e.code, message: e.message, details: e.details },
-      })
-    } finally {
-      clearTimeout(timer)
+      return
     }
+    const e = databaseUnavailable()
+    res.status(503).json({
+      data: { ok: false, database: false },
+      error: { code: e.code, message: e.message, details: e.details },
+    })
   })
   return router
 }

@@ -1,18 +1,13 @@
 import { Router } from 'express'
 import { z } from 'zod'
-import { desc, and, eq } from 'drizzle-orm'
-import type pg from 'pg'
-import { imports } from '../../../schema/index'
-import type { Db } from '../db/client'
-import type { JobQueue } from '../jobs/queue'
 import { projectLocals, requireRole } from '../auth/guards'
+import { holeLocals } from '../auth/load-hole'
 import { inputOf, validate } from '../http/validate'
 import { cleanFileName, singleUpload } from '../http/upload'
 import { csvImportKinds } from '../imports/analyse'
-import { holeOf } from './holes'
-import { BACKGROUND_ROWS, createImport, getImport, importView } from '../services/imports'
-import { commitImport, queueImport } from '../services/import-commit'
-import { assertNotDuplicate } from '../services/import-guards'
+import type { ProjectDeps } from './deps'
+import { createImport, getImport, importView, listImports } from '../services/imports'
+import { requestImportCommit } from '../services/import-request'
 import { undoImport } from '../services/import-undo'
 
 /** A multipart text field holding JSON (mapping, options). */
@@ -40,26 +35,13 @@ const ImportParams = z.object({ importId: z.uuid() })
 /** The same file committed here before: the caller must say it means to commit it again. */
 const CommitBody = z.object({ confirmDuplicate: z.boolean().optional() }).strict()
 
-export interface ImportDeps {
-  db: Db
-  pool: pg.Pool
-  jobs?: JobQueue
-  uploadLimitMb: number
-}
-
 /** /api/projects/:projectId/holes/:holeId/imports: CSV upload → preview → commit by id. */
-export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Router {
+export function importsRouter(deps: ProjectDeps): Router {
+  const { db, uploadLimitMb } = deps
   const router = Router({ mergeParams: true })
 
-  router.get('/', async (req, res) => {
-    const hole = await holeOf(db, req, res)
-    const rows = await db
-      .select()
-      .from(imports)
-      .where(and(eq(imports.holeId, hole.id), eq(imports.projectId, hole.projectId)))
-      .orderBy(desc(imports.createdAt))
-      .limit(50)
-    res.json({ data: rows.map(importView) })
+  router.get('/', async (_req, res) => {
+    res.json({ data: await listImports(db, holeLocals(res)) })
   })
 
   router.post(
@@ -68,7 +50,6 @@ export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Ro
     singleUpload(uploadLimitMb),
     validate({ body: UploadBody }),
     async (req, res) => {
-      const hole = await holeOf(db, req, res)
       const { body } = inputOf(res, { body: UploadBody })
       const file = {
         name: cleanFileName(req.file!.originalname, 'upload.csv'),
@@ -78,7 +59,7 @@ export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Ro
         db,
         req.user!.id,
         projectLocals(res).project,
-        hole,
+        holeLocals(res),
         body.kind,
         file,
         body.mapping,
@@ -88,42 +69,23 @@ export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Ro
     },
   )
 
-  router.get('/:importId', validate({ params: ImportParams }), async (req, res) => {
-    const hole = await holeOf(db, req, res)
+  router.get('/:importId', validate({ params: ImportParams }), async (_req, res) => {
+    const hole = holeLocals(res)
     const { params } = inputOf(res, { params: ImportParams })
     res.json({ data: importView(await getImport(db, hole.projectId, hole.id, params.importId)) })
   })
 
+  // A large import is queued (202) and the page follows its progress; a small one commits now.
   router.post(
     '/:importId/commit',
     requireRole('logger'),
     validate({ params: ImportParams, body: CommitBody }),
     async (req, res) => {
-      const hole = await holeOf(db, req, res)
       const { params, body } = inputOf(res, { params: ImportParams, body: CommitBody })
-      const found = await getImport(db, hole.projectId, hole.id, params.importId)
-      const confirmDuplicate = body.confirmDuplicate === true
-      if (jobs && found.rowCount > BACKGROUND_ROWS) {
-        // Refused before queueing so the caller hears it now; the job checks again.
-        if (found.status === 'previewed') await assertNotDuplicate(db, found, confirmDuplicate)
-        const attempt = await queueImport(db, found.id)
-        await jobs.send('import-commit', {
-          importId: found.id,
-          attempt,
-          actorId: req.user!.id,
-          confirmDuplicate,
-        })
-        res
-          .status(202)
-          .json({ data: importView(await getImport(db, hole.projectId, hole.id, found.id)) })
-        return
-      }
-      await commitImport(db, pool, found.id, {
-        fromJob: false,
-        actorId: req.user!.id,
-        confirmDuplicate,
-      })
-      res.json({ data: importView(await getImport(db, hole.projectId, hole.id, found.id)) })
+      const confirm = body.confirmDuplicate === true
+      const hole = holeLocals(res)
+      const done = await requestImportCommit(deps, req.user!.id, hole, params.importId, confirm)
+      res.status(done.queued ? 202 : 200).json({ data: done.import })
     },
   )
 
@@ -132,10 +94,9 @@ export function importsRouter({ db, pool, jobs, uploadLimitMb }: ImportDeps): Ro
     requireRole('logger'),
     validate({ params: ImportParams }),
     async (req, res) => {
-      const hole = await holeOf(db, req, res)
       const { params } = inputOf(res, { params: ImportParams })
       const { project } = projectLocals(res)
-      const done = await undoImport(db, req.user!.id, project, hole.id, params.importId)
+      const done = await undoImport(db, req.user!.id, project, holeLocals(res).id, params.importId)
       res.json({
         data: {
           ...importView(done.import),

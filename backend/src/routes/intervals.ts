@@ -1,4 +1,4 @@
-import { Router, type Request, type Response } from 'express'
+import { Router } from 'express'
 import { z } from 'zod'
 import {
   AnalysisQuery,
@@ -13,11 +13,12 @@ import {
   SetUpdateBody,
   SuggestQuery,
 } from '../../../schema/index'
-import type { Db } from '../db/client'
 import { projectLocals, requireRole } from '../auth/guards'
+import { holeLocals } from '../auth/load-hole'
+import type { Db } from '../db/client'
 import { notFound } from '../http/errors'
 import { inputOf, validate } from '../http/validate'
-import { holeOf } from './holes'
+import type { ProjectDeps } from './deps'
 import { analyseInterval } from '../services/analysis'
 import { reviewStep, submitForChecking } from '../services/review'
 import {
@@ -40,26 +41,34 @@ const IntervalParams = IdParam('intervalId')
 const SetParams = z.object({ setId: z.coerce.number().int().positive() })
 const VersionQuery = z.object({ version: z.coerce.number().int().positive() })
 
-async function intervalOf(db: Db, req: Request, res: Response) {
-  const hole = await holeOf(db, req, res)
+/** The hole loadHole found and the interval named by :intervalId in it, or 404. */
+async function intervalOf(
+  db: Db,
+  req: { params: unknown },
+  res: { locals: Record<string, unknown> },
+) {
+  const hole = holeLocals(res)
   const id = IntervalParams.safeParse(req.params)
   if (!id.success) throw notFound('Interval')
   return { hole, interval: await getInterval(db, hole.id, id.data.intervalId) }
 }
 
 /** /api/projects/:projectId/holes/:holeId/intervals: intervals, their sets and their analysis. */
-export function intervalsRouter(db: Db): Router {
+export function intervalsRouter({ db, mail }: Pick<ProjectDeps, 'db' | 'mail'>): Router {
   const router = Router({ mergeParams: true })
   const engineer = requireRole('engineer')
+  const actorOf = (req: { user?: Express.User }, res: { locals: Record<string, unknown> }) => ({
+    id: req.user!.id,
+    name: req.user!.name,
+    role: projectLocals(res).role,
+  })
 
-  router.get('/', async (req, res) => {
-    const hole = await holeOf(db, req, res)
-    res.json({ data: await listIntervals(db, hole.id) })
+  router.get('/', async (_req, res) => {
+    res.json({ data: await listIntervals(db, holeLocals(res).id) })
   })
   router.post('/', engineer, validate({ body: IntervalCreateBody }), async (req, res) => {
-    const hole = await holeOf(db, req, res)
     const { body } = inputOf(res, { body: IntervalCreateBody })
-    res.status(201).json({ data: await createInterval(db, req.user!.id, hole, body) })
+    res.status(201).json({ data: await createInterval(db, req.user!.id, holeLocals(res), body) })
   })
   router.get('/:intervalId', async (req, res) => {
     const { hole, interval } = await intervalOf(db, req, res)
@@ -72,7 +81,7 @@ export function intervalsRouter(db: Db): Router {
     async (req, res) => {
       const { hole, interval } = await intervalOf(db, req, res)
       const { body } = inputOf(res, { body: IntervalUpdateBody })
-      res.json({ data: await updateInterval(db, req.user!.id, hole, interval.id, body) })
+      res.json({ data: await updateInterval(db, mail, req.user!.id, hole, interval.id, body) })
     },
   )
   router.delete('/:intervalId', engineer, validate({ query: VersionQuery }), async (req, res) => {
@@ -92,14 +101,13 @@ export function intervalsRouter(db: Db): Router {
     router.post(`/:intervalId/${step}`, engineer, validate({ body: Body }), async (req, res) => {
       const { hole, interval } = await intervalOf(db, req, res)
       const { body } = inputOf(res, { body: Body })
-      const actor = { id: req.user!.id, name: req.user!.name, role: projectLocals(res).role }
-      res.json({ data: await reviewStep(db, actor, hole, interval.id, step, body) })
+      const actor = actorOf(req, res)
+      res.json({ data: await reviewStep(db, mail, actor, hole, interval.id, step, body) })
     })
   }
   router.post('/:intervalId/submit', requireRole('logger'), async (req, res) => {
     const { hole, interval } = await intervalOf(db, req, res)
-    const actor = { id: req.user!.id, name: req.user!.name, role: projectLocals(res).role }
-    res.json({ data: await submitForChecking(db, actor, hole, interval) })
+    res.json({ data: await submitForChecking(db, mail, actorOf(req, res), hole, interval) })
   })
 
   router.get('/:intervalId/sets/suggest', validate({ query: SuggestQuery }), async (req, res) => {
@@ -114,7 +122,8 @@ export function intervalsRouter(db: Db): Router {
     async (req, res) => {
       const { hole, interval } = await intervalOf(db, req, res)
       const { body } = inputOf(res, { body: SetCreateBody })
-      res.status(201).json({ data: await createConeSet(db, req.user!.id, hole, interval, body) })
+      const row = await createConeSet(db, mail, req.user!.id, hole, interval, body)
+      res.status(201).json({ data: row })
     },
   )
   router.post(
@@ -124,7 +133,7 @@ export function intervalsRouter(db: Db): Router {
     async (req, res) => {
       const { hole, interval } = await intervalOf(db, req, res)
       const { body } = inputOf(res, { body: ClusterBody })
-      res.json({ data: await clusterInterval(db, req.user!.id, hole, interval, body.k) })
+      res.json({ data: await clusterInterval(db, mail, req.user!.id, hole, interval, body.k) })
     },
   )
   router.patch(
@@ -134,7 +143,8 @@ export function intervalsRouter(db: Db): Router {
     async (req, res) => {
       const { hole, interval } = await intervalOf(db, req, res)
       const { params, body } = inputOf(res, { params: SetParams, body: SetUpdateBody })
-      res.json({ data: await updateSet(db, req.user!.id, hole, interval, params.setId, body) })
+      const row = await updateSet(db, mail, req.user!.id, hole, interval, params.setId, body)
+      res.json({ data: row })
     },
   )
   router.delete(
@@ -144,7 +154,7 @@ export function intervalsRouter(db: Db): Router {
     async (req, res) => {
       const { hole, interval } = await intervalOf(db, req, res)
       const { params } = inputOf(res, { params: SetParams })
-      await deleteSet(db, req.user!.id, hole, interval, params.setId)
+      await deleteSet(db, mail, req.user!.id, hole, interval, params.setId)
       res.status(204).end()
     },
   )
@@ -155,8 +165,9 @@ export function intervalsRouter(db: Db): Router {
     async (req, res) => {
       const { hole, interval } = await intervalOf(db, req, res)
       const { params, body } = inputOf(res, { params: SetParams, body: MembersBody })
+      const ids = body.structureIds
       res.json({
-        data: await setMembersOf(db, req.user!.id, hole, interval, params.setId, body.structureIds),
+        data: await setMembersOf(db, mail, req.user!.id, hole, interval, params.setId, ids),
       })
     },
   )

@@ -2,13 +2,12 @@ import { Router } from 'express'
 import { z } from 'zod'
 import { projectRoles } from '../../../schema/index'
 import type { Db } from '../db/client'
-import type { Env } from '../env'
 import { newCsrfToken } from '../auth/csrf'
 import { requireSignedIn } from '../auth/guards'
 import { inputOf, validate } from '../http/validate'
-import { acceptInvitation } from '../mail/invitation-accept'
-import { createInvitation, describeInvitation } from '../mail/invitations'
-import { configureMail } from '../mail/transport'
+import type { Mailer } from '../mail/transport'
+import { acceptInvitation } from '../services/invitation-accept'
+import { createInvitation, describeInvitation } from '../services/invitations'
 import { membershipsOf } from '../services/memberships'
 
 const InvitationBody = z
@@ -35,13 +34,12 @@ const AcceptBody = z
   .strict()
 
 /** /api/invitations: invite by e-mail (admin or project lead), then accept with the mailed link. */
-export function invitationsRouter(db: Db, env: Env): Router {
-  configureMail(env)
+export function invitationsRouter(db: Db, mail: Mailer): Router {
   const router = Router()
 
   router.post('/', requireSignedIn, validate({ body: InvitationBody }), async (req, res) => {
     const { body } = inputOf(res, { body: InvitationBody })
-    res.status(201).json({ data: await createInvitation(db, req.user!, body) })
+    res.status(201).json({ data: await createInvitation(db, mail, req.user!, body) })
   })
 
   router.post('/accept', validate({ body: AcceptBody }), async (req, res) => {

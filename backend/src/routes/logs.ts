@@ -1,16 +1,15 @@
-import { Router, type RequestHandler } from 'express'
+import { Router } from 'express'
 import { z } from 'zod'
 import type { Db } from '../db/client'
 import { projectLocals, requireRole } from '../auth/guards'
+import { holeLocals } from '../auth/load-hole'
 import { inputOf, validate } from '../http/validate'
 import { badRequest, notFound } from '../http/errors'
 import { cleanFileName, singleUpload } from '../http/upload'
-import { holeOf } from './holes'
+import { getCurve, listCurves } from '../services/log-curves'
 import {
   commitLasImport,
-  getCurve,
   getImportFile,
-  listCurves,
   previewLasImport,
   surveyFromDeviation,
 } from '../services/logs'
@@ -39,7 +38,10 @@ const UploadedFile = z.object({
   buffer: z.instanceof(Buffer),
 })
 
-/** /api/projects/:projectId/holes/:holeId/logs: LAS upload → preview → commit, and the curves. */
+/**
+ * /api/projects/:projectId/holes/:holeId/logs: LAS upload → preview → commit, and the curves.
+ * loadHole has found the hole before any upload is read.
+ */
 export function logsRouter(db: Db, uploadLimitMb: number): Router {
   const router = Router({ mergeParams: true })
   const importOf = (params: unknown) => {
@@ -47,54 +49,39 @@ export function logsRouter(db: Db, uploadLimitMb: number): Router {
     if (!parsed.success) throw notFound('Import')
     return parsed.data.importId
   }
-  // the hole is checked before the body is read: no 50 MB upload for a hole that is not there
-  const loadHole: RequestHandler = async (req, res, next) => {
-    res.locals.hole = await holeOf(db, req, res)
-    next()
-  }
-  const hole = (res: { locals: Record<string, unknown> }) =>
-    res.locals.hole as Awaited<ReturnType<typeof holeOf>>
-
-  router.get('/', loadHole, async (_req, res) => {
-    const curves = await listCurves(db, hole(res).id)
+  router.get('/', async (_req, res) => {
+    const curves = await listCurves(db, holeLocals(res).id)
     res.json({ data: curves, meta: { count: curves.length } })
   })
 
-  router.post(
-    '/',
-    requireRole('logger'),
-    loadHole,
-    singleUpload(uploadLimitMb),
-    async (req, res) => {
-      const file = UploadedFile.safeParse(req.file)
-      if (!file.success) {
-        const message = req.file
-          ? file.error.issues[0].message
-          : 'Attach a LAS file in the multipart field "file".'
-        throw badRequest(message, [{ path: 'file', message }])
-      }
-      const upload = {
-        fileName: cleanFileName(file.data.originalname, 'upload.las'),
-        bytes: file.data.buffer,
-      }
-      const { project } = projectLocals(res)
-      res
-        .status(201)
-        .json({ data: await previewLasImport(db, req.user!.id, project, hole(res), upload) })
-    },
-  )
+  router.post('/', requireRole('logger'), singleUpload(uploadLimitMb), async (req, res) => {
+    const file = UploadedFile.safeParse(req.file)
+    if (!file.success) {
+      const message = req.file
+        ? file.error.issues[0].message
+        : 'Attach a LAS file in the multipart field "file".'
+      throw badRequest(message, [{ path: 'file', message }])
+    }
+    const upload = {
+      fileName: cleanFileName(file.data.originalname, 'upload.las'),
+      bytes: file.data.buffer,
+    }
+    const { project } = projectLocals(res)
+    res
+      .status(201)
+      .json({ data: await previewLasImport(db, req.user!.id, project, holeLocals(res), upload) })
+  })
 
   router.post(
     '/imports/:importId/commit',
     requireRole('logger'),
-    loadHole,
     validate({ body: LogCommitBody }),
     async (req, res) => {
       const { body } = inputOf(res, { body: LogCommitBody })
       const { project } = projectLocals(res)
       const importId = importOf(req.params)
       res.json({
-        data: await commitLasImport(db, req.user!.id, project, hole(res), importId, body),
+        data: await commitLasImport(db, req.user!.id, project, holeLocals(res), importId, body),
       })
     },
   )
@@ -102,27 +89,26 @@ export function logsRouter(db: Db, uploadLimitMb: number): Router {
   router.post(
     '/imports/:importId/survey-from-deviation',
     requireRole('logger'),
-    loadHole,
     validate({ body: DeviationSurveyBody }),
     async (req, res) => {
       const { body } = inputOf(res, { body: DeviationSurveyBody })
       const { project } = projectLocals(res)
       res.json({
-        data: await surveyFromDeviation(db, project, hole(res), importOf(req.params), body),
+        data: await surveyFromDeviation(db, project, holeLocals(res), importOf(req.params), body),
       })
     },
   )
 
-  router.get('/imports/:importId/file', loadHole, async (req, res) => {
+  router.get('/imports/:importId/file', async (req, res) => {
     const { project } = projectLocals(res)
-    const file = await getImportFile(db, project, hole(res), importOf(req.params))
+    const file = await getImportFile(db, project, holeLocals(res), importOf(req.params))
     res.attachment(file.fileName).type('application/octet-stream').send(file.bytes)
   })
 
-  router.get('/:curveId', loadHole, async (req, res) => {
+  router.get('/:curveId', async (req, res) => {
     const id = CurveParams.safeParse(req.params)
     if (!id.success) throw notFound('Curve')
-    res.json({ data: await getCurve(db, hole(res).id, id.data.curveId) })
+    res.json({ data: await getCurve(db, holeLocals(res).id, id.data.curveId) })
   })
   return router
 }

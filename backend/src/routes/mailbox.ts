@@ -1,15 +1,12 @@
 import { Router } from 'express'
-import { desc } from 'drizzle-orm'
-import { capturedMails } from '../../../schema/index'
 import type { Db } from '../db/client'
 import type { Env } from '../env'
 import { requireAdmin } from '../auth/guards'
 import { notFound } from '../http/errors'
-import { configureMail } from '../mail/transport'
+import { clearMailbox, listCapturedMails } from '../services/mailbox'
 
 /** /api/dev/mailbox: what the local fake SMTP server caught; absent when real mail is in use. */
-export function mailboxRouter(db: Db, env: Env): Router {
-  configureMail(env)
+export function mailboxRouter(db: Db, env: Pick<Env, 'FAKE_SMTP'>): Router {
   const router = Router()
   router.use((_req, _res, next) => {
     if (env.FAKE_SMTP === '0') throw notFound('Mailbox')
@@ -17,16 +14,10 @@ export function mailboxRouter(db: Db, env: Env): Router {
   })
   router.use(requireAdmin)
   router.get('/', async (_req, res) => {
-    const mails = await db
-      .select()
-      .from(capturedMails)
-      .orderBy(desc(capturedMails.receivedAt), desc(capturedMails.id))
-      .limit(100)
-    res.json({ data: mails })
+    res.json({ data: await listCapturedMails(db) })
   })
   router.delete('/', async (_req, res) => {
-    const removed = await db.delete(capturedMails).returning({ id: capturedMails.id })
-    res.json({ data: { removed: removed.length } })
+    res.json({ data: { removed: await clearMailbox(db) } })
   })
   return router
 }

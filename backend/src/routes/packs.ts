@@ -1,21 +1,11 @@
 import { Router, type Request } from 'express'
 import { z } from 'zod'
-import type { Db } from '../db/client'
-import type { Logger } from '../logger'
-import type { JobQueue } from '../jobs/queue'
 import { projectLocals, requireRole } from '../auth/guards'
 import { notFound } from '../http/errors'
 import { inputOf, validate } from '../http/validate'
-import { PackSelectionBody, runPackBuild } from '../exports/pack-build'
-import {
-  createPack,
-  deletePack,
-  getPack,
-  issuePack,
-  listPacks,
-  packFile,
-  requeuePack,
-} from '../services/packs'
+import { PackSelectionBody } from '../services/pack-build'
+import { rebuildPack, requestPack, type PackBuildDeps } from '../services/pack-queue'
+import { deletePack, getPack, issuePack, listPacks, packFile } from '../services/packs'
 
 const PackParams = z.object({ packId: z.uuid() })
 const FileParams = PackParams.extend({ name: z.string().regex(/^[a-z0-9.-]{1,80}$/) })
@@ -27,37 +17,21 @@ function packIdOf(req: Request): string {
   return parsed.data.packId
 }
 
-export interface PackDeps {
-  db: Db
-  jobs?: JobQueue
-  logger?: Logger
-}
-
 /**
  * /api/projects/:projectId/packs: design packs. Builds run as the 'pack-build' job; without a
  * queue (a single process) the build runs in this process after the response.
  */
-export function packsRouter({ db, jobs, logger }: PackDeps): Router {
+export function packsRouter(deps: PackBuildDeps): Router {
+  const { db } = deps
   const router = Router({ mergeParams: true })
   const lead = requireRole('lead')
-  // The job carries the attempt the pack was queued with: a stale retry cannot build it again.
-  const enqueue = async (packId: string, attempt: string | null) => {
-    if (jobs) await jobs.send('pack-build', { packId, attempt })
-    else
-      setImmediate(() => {
-        runPackBuild(db, packId, attempt ?? undefined).catch((err: unknown) =>
-          logger?.error({ err, packId }, 'pack build failed'),
-        )
-      })
-  }
 
   router.get('/', async (_req, res) => {
     res.json({ data: await listPacks(db, projectLocals(res).project.id) })
   })
   router.post('/', lead, validate({ body: PackSelectionBody }), async (req, res) => {
     const { body } = inputOf(res, { body: PackSelectionBody })
-    const pack = await createPack(db, req.user!.id, projectLocals(res).project, body)
-    await enqueue(pack.id, pack.attempt)
+    const pack = await requestPack(deps, req.user!.id, projectLocals(res).project, body)
     res.status(202).json({ data: { id: pack.id, status: pack.status, progress: pack.progress } })
   })
   router.get('/:packId', async (req, res) => {
@@ -69,8 +43,7 @@ export function packsRouter({ db, jobs, logger }: PackDeps): Router {
     })
   })
   router.post('/:packId/rebuild', lead, async (req, res) => {
-    const pack = await requeuePack(db, req.user!.id, projectLocals(res).project.id, packIdOf(req))
-    await enqueue(pack.id, pack.attempt)
+    const pack = await rebuildPack(deps, req.user!.id, projectLocals(res).project.id, packIdOf(req))
     res.status(202).json({ data: { id: pack.id, status: pack.status, progress: pack.progress } })
   })
   router.delete('/:packId', lead, async (req, res) => {

@@ -14,8 +14,8 @@ import { domainsRouter } from './domains'
 import { packsRouter } from './packs'
 import { commentsRouter } from './comments'
 import { auditRouter } from './audit'
-import type { ImportDeps } from './imports'
-import { createInvitation } from '../mail/invitations'
+import type { ProjectDeps } from './deps'
+import { createInvitation } from '../services/invitations'
 import {
   deleteProject,
   listDeletedProjects,
@@ -70,13 +70,13 @@ const BinParams = IdParam('projectId')
 const MemberParams = IdParam('userId')
 
 /** /api/projects/:projectId (after loadProject): settings, members, and the holes below. */
-export function projectRouter(deps: ImportDeps): Router {
-  const { db } = deps
+export function projectRouter(deps: ProjectDeps): Router {
+  const { db, mail } = deps
   const router = Router({ mergeParams: true })
   router.use('/holes', holesRouter(deps))
   router.use('/domains', domainsRouter(db))
-  router.use('/packs', packsRouter({ db, jobs: deps.jobs }))
-  router.use('/comments', commentsRouter(db))
+  router.use('/packs', packsRouter(deps))
+  router.use('/comments', commentsRouter(deps))
   router.use('/audit', auditRouter(db))
   // The convergence at each collar travels with the project: settings and survey panels show it.
   router.get('/', async (_req, res) => {
@@ -92,7 +92,7 @@ export function projectRouter(deps: ImportDeps): Router {
     async (req, res) => {
       const { project, role } = projectLocals(res)
       const { body } = inputOf(res, { body: ProjectUpdateBody })
-      const after = await updateProject(db, req.user!.id, project, body)
+      const after = await updateProject(db, mail, req.user!.id, project, body)
       res.json({ data: { ...after, role, collarConvergence: await collarConvergence(db, after) } })
     },
   )
@@ -112,7 +112,7 @@ export function projectRouter(deps: ImportDeps): Router {
     async (req, res) => {
       const { body } = inputOf(res, { body: MemberAddBody })
       const projectId = projectLocals(res).project.id
-      const invitation = await createInvitation(db, req.user!, { ...body, projectId })
+      const invitation = await createInvitation(db, mail, req.user!, { ...body, projectId })
       const { email, role, expiresAt, mailed } = invitation
       res.status(202).json({ data: { email, role, expiresAt, mailed } })
     },

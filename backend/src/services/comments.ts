@@ -1,9 +1,10 @@
 import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm'
 import { comments, intervals, holes, memberships, structures, users } from '../../../schema/index'
 import type { Db } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { notFound } from '../http/errors'
-import { notifyProject } from '../mail/notify'
 import { audit } from './audit'
+import { notifyProject } from './notify'
 
 type Entity = 'structure' | 'interval'
 
@@ -49,6 +50,7 @@ const EMAIL_MENTION = /@([\w.+-]+@[\w-]+(?:\.[\w-]+)+)/g
  */
 export async function addComment(
   db: Db,
+  mail: Mailer,
   actor: { id: number; name: string },
   projectId: number,
   input: { entity: Entity; entityId: number; body: string; mentions?: number[] },
@@ -95,7 +97,7 @@ export async function addComment(
     return c
   })
   if (members.length) {
-    await notifyProject(db, {
+    await notifyProject(db, mail, {
       projectId,
       userIds: members,
       subject: `${actor.name} mentioned you`,

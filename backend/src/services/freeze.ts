@@ -2,8 +2,9 @@ import { and, asc, eq, gt, inArray, lt, lte, or, sql, type SQL } from 'drizzle-o
 import { intervals, type Interval } from '../../../schema/index'
 import type { Db, Executor, Tx } from '../db/client'
 import { ApiError } from '../http/errors'
-import { notifyProject } from '../mail/notify'
+import type { Mailer } from '../mail/transport'
 import { audit } from './audit'
+import { notifyProject } from './notify'
 
 /**
  * What a write touches in a hole: the whole hole (survey, runs, project conventions: every
@@ -136,6 +137,7 @@ export async function demoteChecked(
 /** Tells each checker that their checked interval went back to draft (after the commit). */
 export async function noticeDemoted(
   db: Db,
+  mail: Mailer,
   projectId: number,
   hole: { id: number; name: string },
   demoted: Demoted[],
@@ -143,7 +145,7 @@ export async function noticeDemoted(
 ): Promise<void> {
   for (const d of demoted) {
     if (d.checkedBy === null) continue
-    await notifyProject(db, {
+    await notifyProject(db, mail, {
       projectId,
       userIds: [d.checkedBy],
       subject: `Back to draft: ${hole.name} ${d.interval.name}`,
@@ -181,12 +183,13 @@ export async function guardWrite(
  */
 export async function writeAndNotice<T>(
   db: Db,
+  mail: Mailer,
   projectId: number,
   hole: { id: number; name: string },
   work: (tx: Tx, demoted: Demoted[]) => Promise<T>,
 ): Promise<T> {
   const demoted: Demoted[] = []
   const out = await db.transaction((tx) => work(tx, demoted))
-  await noticeDemoted(db, projectId, hole, demoted)
+  await noticeDemoted(db, mail, projectId, hole, demoted)
   return out
 }

@@ -4,6 +4,7 @@ import type pg from 'pg'
 import * as schema from '../../../schema/index'
 import { holes, imports, projects } from '../../../schema/index'
 import type { Db } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { conflict } from '../http/errors'
 import { analyseCsv, type CsvImportKind } from '../imports/analyse'
 import { audit } from './audit'
@@ -70,7 +71,13 @@ const REASON = 'an import changed rows inside it'
  * back; the import then reads `failed` with the reason (from a job) or stays `previewed` (from a
  * request, which sees the error itself).
  */
-export async function commitImport(db: Db, pool: pg.Pool, id: string, opts: CommitOptions) {
+export async function commitImport(
+  db: Db,
+  mail: Mailer,
+  pool: pg.Pool,
+  id: string,
+  opts: CommitOptions,
+) {
   const won = await claim(db, id, opts.fromJob, opts.attempt)
   if (!won)
     throw conflict('This import is already committed or being committed.', 'import_not_pending')
@@ -156,6 +163,6 @@ export async function commitImport(db: Db, pool: pg.Pool, id: string, opts: Comm
     releaseLease()
     client.release()
     // After the commit only: a checker is never told of a change that was rolled back.
-    if (told) await noticeDemoted(db, told.projectId, told.hole, demoted, REASON)
+    if (told) await noticeDemoted(db, mail, told.projectId, told.hole, demoted, REASON)
   }
 }

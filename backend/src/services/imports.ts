@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto'
-import { and, eq } from 'drizzle-orm'
+import { and, desc, eq } from 'drizzle-orm'
 import {
   imports,
   type Hole,
@@ -181,4 +181,15 @@ export async function getImport(
     .where(and(eq(imports.id, id), eq(imports.projectId, projectId), eq(imports.holeId, holeId)))
   if (!row) throw notFound('Import')
   return row
+}
+
+/** The hole's last 50 imports, newest first, as the history shows them. */
+export async function listImports(db: Db, hole: Pick<Hole, 'id' | 'projectId'>) {
+  const rows = await db
+    .select()
+    .from(imports)
+    .where(and(eq(imports.holeId, hole.id), eq(imports.projectId, hole.projectId)))
+    .orderBy(desc(imports.createdAt))
+    .limit(50)
+  return rows.map(importView)
 }

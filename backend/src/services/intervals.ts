@@ -12,6 +12,7 @@ import {
   type IntervalUpdate,
 } from '../../../schema/index'
 import type { Db, Executor, Tx } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { ApiError, badRequest, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
 import { assertNotFrozen, demoteChecked, noticeDemoted } from './freeze'
@@ -129,6 +130,7 @@ export async function createInterval(db: Db, actorId: number, hole: Hole, input:
  */
 export async function updateInterval(
   db: Db,
+  mail: Mailer,
   actorId: number,
   hole: Hole,
   id: number,
@@ -169,7 +171,7 @@ export async function updateInterval(
       : []
     return { after: demoted[0]?.interval ?? updated, demoted }
   })
-  await noticeDemoted(db, hole.projectId, hole, demoted, reason)
+  await noticeDemoted(db, mail, hole.projectId, hole, demoted, reason)
   return after
 }
 

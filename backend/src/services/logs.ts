@@ -1,4 +1,4 @@
-import { and, asc, eq, sql } from 'drizzle-orm'
+import { and, eq, sql } from 'drizzle-orm'
 import { imports, logCurves, type Hole, type Project } from '../../../schema/index'
 import type { Db, Executor } from '../db/client'
 import { badRequest, conflict, notFound } from '../http/errors'
@@ -181,51 +181,6 @@ export async function commitLasImport(
     })
     return { curves, skipped }
   })
-}
-
-/** The hole's curves without their sample arrays. */
-export const listCurves = (db: Db, holeId: number) =>
-  db
-    .select({
-      id: logCurves.id,
-      mnemonic: logCurves.mnemonic,
-      unit: logCurves.unit,
-      description: logCurves.description,
-      sourceFile: logCurves.sourceFile,
-      depthShift: logCurves.depthShift,
-      minDepth: logCurves.minDepth,
-      maxDepth: logCurves.maxDepth,
-      sampleCount: sql<number>`coalesce(array_length(${logCurves.values}, 1), 0)`.mapWith(Number),
-      importId: logCurves.importId,
-    })
-    .from(logCurves)
-    .where(eq(logCurves.holeId, holeId))
-    .orderBy(asc(logCurves.id))
-
-/** One curve with its samples; `values` holds null where a sample is absent. */
-export async function getCurve(
-  db: Db,
-  holeId: number,
-  curveId: number,
-): Promise<{
-  id: number
-  mnemonic: string
-  unit: string
-  depths: number[]
-  values: (number | null)[]
-}> {
-  const [row] = await db
-    .select({
-      id: logCurves.id,
-      mnemonic: logCurves.mnemonic,
-      unit: logCurves.unit,
-      depths: logCurves.depths,
-      values: logCurves.values,
-    })
-    .from(logCurves)
-    .where(and(eq(logCurves.id, curveId), eq(logCurves.holeId, holeId)))
-  if (!row) throw notFound('Curve')
-  return row
 }
 
 export async function getImportFile(db: Db, project: Project, hole: Hole, importId: string) {

@@ -3,14 +3,14 @@ import { holes, intervals, packFiles, packs, type Pack, type Project } from '../
 import type { Db } from '../db/client'
 import { ApiError, badRequest, conflict, notFound } from '../http/errors'
 import { contentHashOf } from '../exports/hash'
-import { loadPackData, type PackSelection } from '../exports/pack-data'
-import { StoredSelection } from '../exports/pack-build'
-import { getPack } from '../exports/pack-records'
 import { isApproved } from '../exports/sign-off'
-
-export { getPack, listPacks, packFile } from '../exports/pack-records'
 import { audit } from './audit'
 import { newAttempt } from './leases'
+import { StoredSelection } from './pack-build'
+import { loadPackData, type PackSelection } from './pack-data'
+import { getPack } from './pack-records'
+
+export { getPack, listPacks, packFile } from './pack-records'
 
 export const packIssued = () =>
   conflict('An issued pack is frozen: it cannot change.', 'pack_issued')

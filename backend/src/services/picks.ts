@@ -6,11 +6,13 @@ import {
 } from '../../../orient/index'
 import { structures, type Hole, type Project } from '../../../schema/index'
 import type { Executor } from '../db/client'
+import type { StructureInputRow } from '../db/structure-columns'
 import type { PickImportOptionsT, PickRow } from '../imports/kinds/picks'
 import { declinationFor } from './declination'
 import type { ComputeContext } from '../../../orient/index'
 
-type NewPick = StoredStructure & typeof structures.$inferInsert
+/** A pick as inserted: its inputs only; the recompute that follows writes the computed columns. */
+type NewPick = StoredStructure & StructureInputRow
 
 /**
  * Picks as stored structures (source image), with the raw sinusoid kept. Magnetic-north image
@@ -59,13 +61,12 @@ export function picksToStructures(
       pickAzimuthReference:
         options.azimuthReference === 'north' ? `north-${options.northReference}` : 'highside',
       pickQuality: r.quality ?? null,
-      declinationApplied: declination,
       comment: r.comment ?? '',
     }
   })
 }
 
-/** Inserts picks in chunks inside the caller's transaction. */
+/** Inserts picks in chunks inside the caller's transaction; the caller then recomputes the hole. */
 export async function insertPicks(tx: Executor, rows: NewPick[], importId: string, userId: number) {
   for (let i = 0; i < rows.length; i += 1000) {
     await tx

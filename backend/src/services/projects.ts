@@ -10,6 +10,7 @@ import {
   type ProjectUpdate,
 } from '../../../schema/index'
 import type { Db } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { badRequest, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
 import {
@@ -84,6 +85,7 @@ export async function createProject(
  */
 export async function updateProject(
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   input: ProjectUpdate,
@@ -112,7 +114,7 @@ export async function updateProject(
       demotions = await recomputeConventions(tx, actorId, after)
     return after
   })
-  await noticeConventionDemotions(db, project.id, demotions)
+  await noticeConventionDemotions(db, mail, project.id, demotions)
   return updated
 }
 

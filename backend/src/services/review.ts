@@ -2,15 +2,16 @@ import { and, eq } from 'drizzle-orm'
 import {
   intervals,
   projects,
+  roleAtLeast,
   type Hole,
   type Interval,
   type ProjectRole,
 } from '../../../schema/index'
 import type { Db, Tx } from '../db/client'
-import { roleAtLeast } from '../auth/guards'
+import type { Mailer } from '../mail/transport'
 import { ApiError, conflict, forbidden, staleVersion } from '../http/errors'
-import { notifyProject } from '../mail/notify'
 import { audit } from './audit'
+import { notifyProject } from './notify'
 import { getInterval, settingsOf } from './intervals'
 
 type Step = 'check' | 'approve' | 'reopen'
@@ -64,6 +65,7 @@ async function assertFourEyes(tx: Tx, actor: Actor, projectId: number, interval:
  */
 export async function reviewStep(
   db: Db,
+  mail: Mailer,
   actor: Actor,
   hole: Hole & { name: string },
   intervalId: number,
@@ -115,7 +117,7 @@ export async function reviewStep(
     })
     return { row, before }
   })
-  await tellTeam(db, actor, hole, step, after, input.reason)
+  await tellTeam(db, mail, actor, hole, step, after, input.reason)
   return after.row
 }
 
@@ -125,6 +127,7 @@ export async function reviewStep(
  */
 async function tellTeam(
   db: Db,
+  mail: Mailer,
   actor: Actor,
   hole: Hole & { name: string },
   step: Step,
@@ -142,7 +145,7 @@ async function tellTeam(
     step === 'reopen'
       ? `${actor.name} reopened ${what}: ${reason}`
       : `${actor.name} marked ${what} as ${after.status}.`
-  await notifyProject(db, {
+  await notifyProject(db, mail, {
     projectId: hole.projectId,
     roles: step === 'check' ? ['lead'] : ['engineer', 'lead'],
     userIds:
@@ -156,7 +159,13 @@ async function tellTeam(
 }
 
 /** Asks the engineers to check an interval; changes nothing but the audit trail. */
-export async function submitForChecking(db: Db, actor: Actor, hole: Hole, interval: Interval) {
+export async function submitForChecking(
+  db: Db,
+  mail: Mailer,
+  actor: Actor,
+  hole: Hole,
+  interval: Interval,
+) {
   if (interval.status !== 'draft')
     throw new ApiError(409, 'wrong_status', 'Only a draft interval is submitted for checking.')
   await db.transaction((tx) =>
@@ -168,7 +177,7 @@ export async function submitForChecking(db: Db, actor: Actor, hole: Hole, interv
       action: 'submit',
     }),
   )
-  const sent = await notifyProject(db, {
+  const sent = await notifyProject(db, mail, {
     projectId: hole.projectId,
     roles: ['engineer'],
     subject: `Ready for checking: ${hole.name} ${interval.name}`,

@@ -1,5 +1,5 @@
 import { and, asc, eq } from 'drizzle-orm'
-import { runMetrics } from '../../../orient/index'
+import { runMetricsOf } from '../../../orient/index'
 import {
   coreRuns,
   RunInput,
@@ -8,9 +8,9 @@ import {
   type Project,
   type RunInputT,
 } from '../../../schema/index'
-import { zodDetails } from '../http/validate'
 import type { Db, Executor } from '../db/client'
-import { badRequest, notFound, staleVersion } from '../http/errors'
+import type { Mailer } from '../mail/transport'
+import { badRequest, notFound, staleVersion, zodDetails } from '../http/errors'
 import { audit } from './audit'
 import { writeOnce, type IdempotencyRequest } from './idempotency'
 import { writeAndNotice, type Demoted } from './freeze'
@@ -28,15 +28,7 @@ export { checkRunSequence } from './run-rules'
 
 /** A run with its TCR, SCR, RQD (%), fracture frequency (/m) and Deere class. */
 export function withMetrics(run: CoreRun) {
-  const m = runMetrics({
-    from: run.fromDepth,
-    to: run.toDepth,
-    recovered: run.recovered,
-    solid: run.solid,
-    rqdLength: run.rqdLength,
-    fractures: run.fractureCount,
-  })
-  return { ...run, metrics: m ?? null }
+  return { ...run, metrics: runMetricsOf(run) ?? null }
 }
 
 export async function listRuns(db: Executor, holeId: number) {
@@ -112,35 +104,38 @@ export async function replaceRunsIn(
 
 export const replaceRuns = (
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   hole: Hole,
   runs: RunInputT[],
 ) =>
-  writeAndNotice(db, project.id, hole, (tx, demoted) =>
+  writeAndNotice(db, mail, project.id, hole, (tx, demoted) =>
     replaceRunsIn(tx, actorId, project, hole, runs, demoted),
   )
 
 export async function addRun(
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   hole: Hole,
   input: RunInputT,
 ) {
-  return (await addRunOnce(db, actorId, project, hole, input)).body.data
+  return (await addRunOnce(db, mail, actorId, project, hole, input)).body.data
 }
 
 /** Adds one run, at most once per idempotency key (as `createStructureOnce`). */
 export async function addRunOnce(
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   hole: Hole,
   input: RunInputT,
   idempotency?: IdempotencyRequest,
 ) {
-  return writeAndNotice(db, project.id, hole, (tx, demoted) =>
+  return writeAndNotice(db, mail, project.id, hole, (tx, demoted) =>
     writeOnce(tx, idempotency, 201, async () => {
       const current = await lockHole(tx, hole.id)
       assertRunsWithinHole(current, [{ toDepth: input.toDepth, path: 'body.toDepth' }])
@@ -170,6 +165,7 @@ export async function addRunOnce(
 
 export async function updateRun(
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   hole: Hole,
@@ -177,7 +173,7 @@ export async function updateRun(
   input: Partial<RunInputT> & { version: number },
 ) {
   const { version, ...fields } = input
-  return writeAndNotice(db, project.id, hole, async (tx, demoted) => {
+  return writeAndNotice(db, mail, project.id, hole, async (tx, demoted) => {
     const [before] = await tx
       .select()
       .from(coreRuns)
@@ -214,8 +210,15 @@ export async function updateRun(
   })
 }
 
-export async function deleteRun(db: Db, actorId: number, project: Project, hole: Hole, id: number) {
-  await writeAndNotice(db, project.id, hole, async (tx, demoted) => {
+export async function deleteRun(
+  db: Db,
+  mail: Mailer,
+  actorId: number,
+  project: Project,
+  hole: Hole,
+  id: number,
+) {
+  await writeAndNotice(db, mail, project.id, hole, async (tx, demoted) => {
     const current = await lockHole(tx, hole.id)
     const [before] = await tx
       .delete(coreRuns)

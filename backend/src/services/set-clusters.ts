@@ -2,6 +2,7 @@ import { eq } from 'drizzle-orm'
 import { angleBetweenLines, clusterSets, suggestK, type Line } from '../../../orient/index'
 import { setMembers, structureSets, type Hole, type Interval } from '../../../schema/index'
 import type { Db, Executor } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { badRequest } from '../http/errors'
 import { audit } from './audit'
 import { guardWrite, writeAndNotice } from './freeze'
@@ -62,12 +63,13 @@ export async function replaceWithClusters(tx: Executor, interval: Interval, k: n
  */
 export async function clusterInterval(
   db: Db,
+  mail: Mailer,
   actorId: number,
   hole: Hole,
   interval: Interval,
   k: number,
 ) {
-  return writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
+  return writeAndNotice(db, mail, hole.projectId, hole, async (tx, demoted) => {
     const change = {
       what: `Re-clustering the sets into ${k}`,
       reason: `its sets were re-clustered into ${k}`,

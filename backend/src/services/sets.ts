@@ -7,6 +7,7 @@ import {
   type Interval,
 } from '../../../schema/index'
 import type { Db, Executor, Tx } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { badRequest, notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
 import { guardWrite, writeAndNotice, type Demoted, type FreezeChange } from './freeze'
@@ -43,12 +44,13 @@ type SetFields = { name: string; centreTrend: number; centrePlunge: number; cone
 /** A set defined by a centre (a pole) and a cone angle. */
 export async function createConeSet(
   db: Db,
+  mail: Mailer,
   actorId: number,
   hole: Hole,
   interval: Interval,
   input: SetFields,
 ) {
-  return writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
+  return writeAndNotice(db, mail, hole.projectId, hole, async (tx, demoted) => {
     const change = { what: `Adding set "${input.name}"`, reason: `set "${input.name}" was added` }
     await guardSets(tx, actorId, hole, interval, change, demoted)
     const [row] = await tx
@@ -69,6 +71,7 @@ export async function createConeSet(
 
 export async function updateSet(
   db: Db,
+  mail: Mailer,
   actorId: number,
   hole: Hole,
   interval: Interval,
@@ -76,7 +79,7 @@ export async function updateSet(
   input: Partial<SetFields> & { version: number },
 ) {
   const { version, ...fields } = input
-  return writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
+  return writeAndNotice(db, mail, hole.projectId, hole, async (tx, demoted) => {
     const before = await getSet(tx, interval.id, setId)
     const change = {
       what: `Editing set "${before.name}"`,
@@ -104,12 +107,13 @@ export async function updateSet(
 
 export async function deleteSet(
   db: Db,
+  mail: Mailer,
   actorId: number,
   hole: Hole,
   interval: Interval,
   setId: number,
 ) {
-  await writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
+  await writeAndNotice(db, mail, hole.projectId, hole, async (tx, demoted) => {
     const before = await getSet(tx, interval.id, setId)
     const change = {
       what: `Deleting set "${before.name}"`,
@@ -134,13 +138,14 @@ export async function deleteSet(
  */
 export async function setMembersOf(
   db: Db,
+  mail: Mailer,
   actorId: number,
   hole: Hole,
   interval: Interval,
   setId: number,
   ids: number[],
 ) {
-  return writeAndNotice(db, hole.projectId, hole, async (tx, demoted) => {
+  return writeAndNotice(db, mail, hole.projectId, hole, async (tx, demoted) => {
     const set = await getSet(tx, interval.id, setId)
     const change = {
       what: `Changing the members of set "${set.name}"`,

@@ -1,6 +1,7 @@
 import { asc, eq, sql } from 'drizzle-orm'
 import { holes, surveyStations, type Hole, type Project } from '../../../schema/index'
 import type { Db, Executor } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { audit } from './audit'
 import { assertNotFrozen, demoteChecked, noticeDemoted, type Demoted } from './freeze'
 import { listStations, stationRow } from './survey'
@@ -116,6 +117,12 @@ export async function recomputeConventions(
 }
 
 /** After the commit: each checker of a demoted interval is told. */
-export async function noticeConventionDemotions(db: Db, projectId: number, all: HoleDemotions[]) {
-  for (const { hole, demoted } of all) await noticeDemoted(db, projectId, hole, demoted, REASON)
+export async function noticeConventionDemotions(
+  db: Db,
+  mail: Mailer,
+  projectId: number,
+  all: HoleDemotions[],
+) {
+  for (const { hole, demoted } of all)
+    await noticeDemoted(db, mail, projectId, hole, demoted, REASON)
 }

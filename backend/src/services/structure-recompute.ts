@@ -3,6 +3,7 @@ import { structures, type Hole, type Project } from '../../../schema/index'
 import type { Executor } from '../db/client'
 import { computeStructures, storedInputs, type ComputeContext } from '../../../orient/index'
 import { affectedRange, loadComputeContext } from './structure-context'
+import { computedColumns, computedValues } from '../db/structure-columns'
 
 export interface DepthRange {
   from: number
@@ -87,19 +88,27 @@ async function recomputeRange(
   const computed = computeStructures(ctx, rows.map(storedInputs))
   const payload = rows.map((r, i) => ({
     id: r.id,
-    ...computed[i],
-    survey_revision: hole.surveyRevision,
+    ...computedValues(computed[i], hole.surveyRevision),
   }))
   await tx.execute(sql`
-    update structures s set
-      dip = v."dip", dip_direction = v."dipDirection", pole_trend = v."poleTrend", pole_plunge = v."polePlunge",
-      hole_trend = v."holeTrend", hole_plunge = v."holePlunge", east = v."east", north = v."north",
-      elevation = v."elevation", terzaghi_weight = v."terzaghiWeight",
-      declination_applied = v."declinationApplied", flags = v."flags", survey_revision = v.survey_revision
-    from jsonb_to_recordset(${JSON.stringify(payload)}::jsonb) as v(
-      id int, "dip" float8, "dipDirection" float8, "poleTrend" float8, "polePlunge" float8,
-      "holeTrend" float8, "holePlunge" float8, "east" float8, "north" float8, "elevation" float8,
-      "terzaghiWeight" float8, "declinationApplied" float8, "flags" text[], survey_revision int)
+    update structures s set ${assignments}
+    from jsonb_to_recordset(${JSON.stringify(payload)}::jsonb) as v(id int, ${recordColumns})
     where s.id = v.id`)
   return rows.length
 }
+
+// The update's SET list and the payload's record type, both from the one list of computed columns:
+// column = v."key", the payload carrying each value under its TS key.
+const computedEntries = Object.entries(computedColumns)
+const assignments = sql.join(
+  computedEntries.map(
+    ([key, column]) => sql`${sql.identifier(column.name)} = v.${sql.identifier(key)}`,
+  ),
+  sql`, `,
+)
+const recordColumns = sql.join(
+  computedEntries.map(
+    ([key, column]) => sql`${sql.identifier(key)} ${sql.raw(column.getSQLType())}`,
+  ),
+  sql`, `,
+)

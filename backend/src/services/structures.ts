@@ -1,5 +1,6 @@
 import { and, asc, eq } from 'drizzle-orm'
 import {
+  roleAtLeast,
   structures,
   type Hole,
   type Project,
@@ -9,8 +10,8 @@ import {
   type StructureUpdate,
 } from '../../../schema/index'
 import type { Db, Executor, Tx } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { forbidden, notFound, staleVersion } from '../http/errors'
-import { roleAtLeast } from '../auth/guards'
 import { audit } from './audit'
 import { writeOnce, type Answer, type IdempotencyRequest } from './idempotency'
 import { assertNotFrozen, demoteChecked, writeAndNotice, type Demoted } from './freeze'
@@ -91,12 +92,13 @@ const at = (depth: number) => `${depth} m`
 /** Adds one structure; see `createStructureOnce` for retries with an Idempotency-Key. */
 export async function createStructure(
   db: Db,
+  mail: Mailer,
   actor: Actor,
   project: Project,
   hole: Hole,
   input: StructureInputT,
 ): Promise<Structure> {
-  return (await createStructureOnce(db, actor, project, hole, input)).body.data
+  return (await createStructureOnce(db, mail, actor, project, hole, input)).body.data
 }
 
 /**
@@ -105,6 +107,7 @@ export async function createStructure(
  */
 export async function createStructureOnce(
   db: Db,
+  mail: Mailer,
   actor: Actor,
   project: Project,
   hole: Hole,
@@ -117,7 +120,7 @@ export async function createStructureOnce(
     what: `A structure at ${at(input.depth)}`,
     reason: `a structure was added at ${at(input.depth)}`,
   }
-  return writeAndNotice(db, project.id, hole, (tx, demoted) =>
+  return writeAndNotice(db, mail, project.id, hole, (tx, demoted) =>
     writeOnce(tx, idempotency, 201, async () => {
       const current = await guardStructureWrite(tx, actor, hole, change, demoted)
       const [row] = await tx
@@ -157,6 +160,7 @@ export async function getStructure(db: Executor, holeId: number, id: number): Pr
 
 export async function updateStructure(
   db: Db,
+  mail: Mailer,
   actor: Actor,
   project: Project,
   hole: Hole,
@@ -164,7 +168,7 @@ export async function updateStructure(
   input: StructureUpdate,
 ): Promise<Structure> {
   const { version, ...fields } = input
-  return writeAndNotice(db, project.id, hole, async (tx, demoted) => {
+  return writeAndNotice(db, mail, project.id, hole, async (tx, demoted) => {
     const before = await getStructure(tx, hole.id, id)
     const depths = [before.depth, fields.depth ?? before.depth]
     const moved = depths[1] !== depths[0] ? ` (moved to ${at(depths[1])})` : ''
@@ -203,13 +207,14 @@ export async function updateStructure(
 
 export async function deleteStructure(
   db: Db,
+  mail: Mailer,
   actor: Actor,
   project: Project,
   hole: Hole,
   id: number,
   version: number,
 ): Promise<void> {
-  await writeAndNotice(db, project.id, hole, async (tx, demoted) => {
+  await writeAndNotice(db, mail, project.id, hole, async (tx, demoted) => {
     const before = await getStructure(tx, hole.id, id)
     const change = {
       depths: [before.depth],

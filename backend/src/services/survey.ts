@@ -8,6 +8,7 @@ import {
   type SurveyStation,
 } from '../../../schema/index'
 import type { Db, Executor } from '../db/client'
+import type { Mailer } from '../mail/transport'
 import { notFound, staleVersion } from '../http/errors'
 import { audit } from './audit'
 import { azimuthToTrue, convergenceFor, declinationFor } from './declination'
@@ -110,23 +111,25 @@ export async function replaceSurveyIn(
 
 export const replaceSurvey = (
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   hole: Hole,
   stations: StationInputT[],
 ) =>
-  writeAndNotice(db, project.id, hole, (tx, demoted) =>
+  writeAndNotice(db, mail, project.id, hole, (tx, demoted) =>
     replaceSurveyIn(tx, actorId, project, hole, stations, demoted),
   )
 
 export async function addStation(
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   hole: Hole,
   input: StationInputT,
 ) {
-  return writeAndNotice(db, project.id, hole, async (tx, demoted) => {
+  return writeAndNotice(db, mail, project.id, hole, async (tx, demoted) => {
     const [row] = await tx
       .insert(surveyStations)
       .values({ ...stationRow(project, hole, input), holeId: hole.id })
@@ -146,13 +149,14 @@ export async function addStation(
 
 export async function updateStation(
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   hole: Hole,
   stationId: number,
   input: Partial<StationInputT> & { version: number },
 ) {
-  return writeAndNotice(db, project.id, hole, async (tx, demoted) => {
+  return writeAndNotice(db, mail, project.id, hole, async (tx, demoted) => {
     const where = and(eq(surveyStations.id, stationId), eq(surveyStations.holeId, hole.id))
     const [before] = await tx.select().from(surveyStations).where(where)
     if (!before) throw notFound('Survey station')
@@ -186,12 +190,13 @@ export async function updateStation(
 
 export async function deleteStation(
   db: Db,
+  mail: Mailer,
   actorId: number,
   project: Project,
   hole: Hole,
   stationId: number,
 ) {
-  await writeAndNotice(db, project.id, hole, async (tx, demoted) => {
+  await writeAndNotice(db, mail, project.id, hole, async (tx, demoted) => {
     const [before] = await tx
       .delete(surveyStations)
       .where(and(eq(surveyStations.id, stationId), eq(surveyStations.holeId, hole.id)))

@@ -1,113 +1,68 @@
-// Shapes of the depth-view and interval-review API, mirrored by hand from the contract.
-import type { Id } from './types'
-import type { AnalysisSettingKey, StructureType } from '../../../schema/vocabulary'
+// Shapes of the depth-view and interval-review API: rows from schema/, statistics and verdicts
+// from orient/ (type-only imports), and what the analysis adds declared beside them.
+import type { Id, Run, Structure, Wire } from './types'
+import type { FisherStats, Line, Plane, Verdict, WedgeVerdict } from '../../../orient/index'
+import type {
+  Domain as DomainRow,
+  Interval as IntervalRow,
+  LogCurve,
+  StructureSet,
+} from '../../../schema/index'
+import type { AnalysisSettingKey, StructureSource } from '../../../schema/vocabulary'
 
-export type { AnalysisSettingKey, StructureType }
-export type StructureSource = 'core' | 'image' | 'true'
-export type IntervalStatus = 'draft' | 'checked' | 'approved' | 'issued'
-export type Weighting = 'terzaghi' | 'none'
-export type ContourMethod = 'kamb' | 'exponential'
+export type { IntervalCreate, IntervalUpdate, SetCreate, SetUpdate } from '../../../schema/index'
+export type { KSuggestion, RunMetrics } from '../../../orient/index'
+export type {
+  AnalysisSettingKey,
+  AnalysisWeighting as Weighting,
+  ContourMethod,
+  IntervalStatus,
+  StructureSource,
+  StructureType,
+} from '../../../schema/vocabulary'
 
 /** An interval's analysis settings: saved with it, shown on its screen, used by its pack. */
-export interface AnalysisSettings {
-  weighting: Weighting
-  contourMethod: ContourMethod
-  faceDip: number | null
-  faceDipDirection: number | null
-  frictionDeg: number | null
-  lateralLimitDeg: number
-  topplingLimitDeg: number
-}
+export type AnalysisSettings = Pick<IntervalRow, AnalysisSettingKey>
 
 /** A logged structure as the depth view reads it (GET …/holes/:holeId/structures). */
-export interface DepthStructure {
-  id: Id
-  depth: number
-  type: StructureType
-  source: StructureSource
-  alpha: number | null
-  beta: number | null
-  dip: number | null
-  /** Null when the structure is unoriented. */
-  dipDirection: number | null
-  poleTrend: number | null
-  polePlunge: number | null
-  holeTrend: number | null
-  holePlunge: number | null
-  terzaghiWeight: number | null
-  flags: string[]
-  confidence: 'high' | 'medium' | 'low' | null
-  comment: string | null
-}
+export type DepthStructure = Pick<
+  Structure,
+  | 'id'
+  | 'depth'
+  | 'type'
+  | 'source'
+  | 'alpha'
+  | 'beta'
+  | 'dip'
+  | 'dipDirection'
+  | 'poleTrend'
+  | 'polePlunge'
+  | 'holeTrend'
+  | 'holePlunge'
+  | 'terzaghiWeight'
+  | 'flags'
+  | 'confidence'
+  | 'comment'
+>
 
-export interface RunMetrics {
-  tcr: number
-  scr: number
-  rqd: number
-  frequency: number
-  rqdClass: string
-}
+/** A core run as the depth view reads it (GET …/holes/:holeId/runs). */
+export type DepthRun = Pick<Run, 'id' | 'fromDepth' | 'toDepth' | 'markConfidence' | 'metrics'>
 
-export interface DepthRun {
-  id: Id
-  fromDepth: number
-  toDepth: number
-  markConfidence: string
-  metrics: RunMetrics | null
-}
+/** A LAS curve stored for a hole (GET …/holes/:holeId/logs); sourceFile names the LAS file. */
+export type CurveInfo = Pick<
+  LogCurve,
+  'id' | 'mnemonic' | 'unit' | 'description' | 'minDepth' | 'maxDepth' | 'sourceFile'
+> & { sampleCount: number }
 
-/** A LAS curve stored for a hole (GET …/holes/:holeId/logs). */
-export interface CurveInfo {
-  id: Id
-  mnemonic: string
-  unit: string
-  description: string
-  minDepth: number
-  maxDepth: number
-  sampleCount: number
-  /** The LAS file it came from (two files may hold the same mnemonic). */
-  sourceFile?: string
-}
-
-export interface CurveData {
-  id: Id
-  mnemonic: string
-  unit: string
-  depths: number[]
+/** One curve with its samples; `values` holds null where a sample is absent. */
+export type CurveData = Pick<LogCurve, 'id' | 'mnemonic' | 'unit' | 'depths'> & {
   values: (number | null)[]
 }
 
-export interface Domain {
-  id: Id
-  name: string
-  description: string
-}
+export type Domain = DomainRow
 
-export interface Interval extends AnalysisSettings {
-  id: Id
-  holeId: Id
-  domainId: Id | null
-  domainName: string | null
-  name: string
-  fromDepth: number
-  toDepth: number
-  status: IntervalStatus
-  checkedBy?: Id | null
-  checkedAt?: string | null
-  approvedBy?: Id | null
-  approvedAt?: string | null
-  version: number
-  structureCount: number
-}
-
-export interface IntervalCreate extends Partial<AnalysisSettings> {
-  name: string
-  fromDepth: number
-  toDepth: number
-  domainId?: Id | null
-}
-
-export type IntervalUpdate = { version: number } & Partial<IntervalCreate>
+/** An interval with its domain's name; the hole's list also counts the structures inside. */
+export type Interval = Wire<IntervalRow> & { domainName: string | null; structureCount?: number }
 
 /** Filters, and settings that override the saved ones for exploring (left out = saved). */
 export interface AnalysisQuery extends Partial<AnalysisSettings> {
@@ -122,19 +77,19 @@ export interface AnalysisSettingsUsed {
   overridden: AnalysisSettingKey[]
 }
 
-export interface AnalysisStructure {
-  id: Id
-  depth: number
-  type: StructureType
-  source: StructureSource
-  dip: number | null
-  dipDirection: number | null
-  poleTrend: number | null
-  polePlunge: number | null
-  terzaghiWeight: number | null
-  flags: string[]
-  setId: Id | null
-}
+export type AnalysisStructure = Pick<
+  Structure,
+  | 'id'
+  | 'depth'
+  | 'type'
+  | 'source'
+  | 'dip'
+  | 'dipDirection'
+  | 'poleTrend'
+  | 'polePlunge'
+  | 'terzaghiWeight'
+  | 'flags'
+> & { setId: Id | null }
 
 export interface SetSpacing {
   apparent: number | null
@@ -142,33 +97,27 @@ export interface SetSpacing {
   isrmClass: string | null
 }
 
-export interface AnalysisSet {
-  id: Id
-  name: string
-  rule: 'cone' | 'cluster'
-  centreTrend: number
-  centrePlunge: number
-  coneAngle: number
+/** A set with its members' Fisher statistics (Fisher 1953), rounded; null with too few poles. */
+export type AnalysisSet = Pick<
+  StructureSet,
+  'id' | 'name' | 'rule' | 'centreTrend' | 'centrePlunge' | 'coneAngle' | 'version'
+> & { [K in 'kappa' | 'alpha95' | 'sphericalVariance']: FisherStats[K] | null } & {
   count: number
   weightedCount: number
   percent: number
-  mean: { dip: number; dipDirection: number } | null
-  meanPole: { trend: number; plunge: number } | null
-  kappa: number | null
-  alpha95: number | null
-  sphericalVariance: number | null
+  mean: Plane | null
+  meanPole: Line | null
   spacing: SetSpacing | null
-  version: number
 }
 
-export interface SetIntersection {
+/** A line as the analysis rounds it: null when there is none (parallel means). */
+type MaybeLine = { [K in keyof Line]: Line[K] | null }
+
+export type SetIntersection = MaybeLine & {
   setA: Id
   setB: Id
   nameA: string
   nameB: string
-  /** Null when the two means are parallel (no line of intersection). */
-  trend: number | null
-  plunge: number | null
   /** Acute angle between the two mean planes. */
   angle: number | null
 }
@@ -179,30 +128,23 @@ export interface ModeShare {
   percent: number
 }
 
-export interface KinematicPair {
-  setA: Id
-  setB: Id
-  trend: number | null
-  plunge: number | null
-  possible: boolean
-  /** Sliding along the intersection, or on set A's or B's plane alone. */
-  slidesOn: 'intersection' | 'a' | 'b' | null
-  reason: string
-}
+/** Wedge sliding on a pair of set means: along the intersection, or on set A's or B's plane alone. */
+export type KinematicPair = MaybeLine &
+  Pick<WedgeVerdict, 'possible' | 'reason'> & {
+    setA: Id
+    setB: Id
+    slidesOn: NonNullable<WedgeVerdict['slidesOn']> | null
+  }
 
 export interface Kinematics {
-  face: { dip: number; dipDirection: number }
+  face: Plane
   friction: number
   lateralLimit: number
   topplingLimit: number
   planar: ModeShare
   toppling: ModeShare
   wedge: ModeShare
-  items: {
-    structureId: Id
-    planar: { possible: boolean; reason: string }
-    toppling: { possible: boolean; reason: string }
-  }[]
+  items: { structureId: Id; planar: Verdict; toppling: Verdict }[]
   pairs: KinematicPair[]
 }
 
@@ -210,24 +152,10 @@ export interface Analysis {
   interval: Interval
   settings: AnalysisSettingsUsed
   /** Hole direction at mid-interval (null without a survey): the blind zone's axis. */
-  hole: { trend: number; plunge: number } | null
+  hole: Line | null
   counts: { total: number; oriented: number; unoriented: number; flagged: number }
   structures: AnalysisStructure[]
   sets: AnalysisSet[]
   intersections: SetIntersection[]
   kinematics: Kinematics | null
-}
-
-export interface SetCreate {
-  name: string
-  centreTrend: number
-  centrePlunge: number
-  coneAngle: number
-}
-
-export type SetUpdate = { version: number } & Partial<SetCreate>
-
-export interface KSuggestion {
-  k: number
-  scores: { k: number; silhouette: number }[]
 }

@@ -1,24 +1,17 @@
 import { api, API_BASE, seg } from './client'
-import type { IdParam } from './types'
+import type { IdParam, Pack } from './types'
+import type { Interval } from './interval-types'
+import type { PackStatus } from '../../../schema/vocabulary'
 
-export type PackStatus = 'queued' | 'building' | 'ready' | 'failed' | 'issued'
+export type { PackStatus }
 
-export interface PackSummary {
-  id: string
-  projectId: number
-  status: PackStatus
-  /** Built with intervals that were not approved: a preview that says DRAFT and is never issued. */
-  draft: boolean
-  selection: { holeIds?: number[]; intervalIds?: number[] }
-  progress: number
-  message: string
-  inputsHash: string | null
-  contentHash: string | null
-  createdAt: string
-  createdBy: number | null
+/**
+ * A pack as listed, with who built and issued it. `draft`: built with intervals that were not
+ * approved, a preview that says DRAFT and is never issued.
+ */
+export type PackSummary = Omit<Pack, 'selection'> & {
+  selection: PackSelection
   createdByName: string | null
-  issuedAt: string | null
-  issuedBy: number | null
   issuedByName: string | null
 }
 
@@ -30,12 +23,8 @@ export interface PackFile {
 }
 
 /** A packed interval as it is now (its status may have moved on since the build). */
-export interface PackInterval {
-  id: number
-  holeId: number
+export type PackInterval = Pick<Interval, 'id' | 'holeId' | 'name' | 'status'> & {
   holeName: string
-  name: string
-  status: 'draft' | 'checked' | 'approved' | 'issued'
 }
 
 export interface PackDetail extends PackSummary {

@@ -1,7 +1,8 @@
 import { api, seg } from './client'
 import type { IdParam } from './types'
+import type { IntervalStatus } from '../../../schema/vocabulary'
 
-export type IntervalStatus = 'draft' | 'checked' | 'approved' | 'issued'
+export type { IntervalStatus }
 
 /** The fields of an interval the review steps read and return. */
 export interface ReviewedInterval {

@@ -1,8 +1,8 @@
-import { projectRoles, type ProjectRole } from './types'
+import { roleRank as ladderRank, type ProjectRole } from '../../../schema/vocabulary'
 
-/** Rank in the role ladder viewer < logger < engineer < lead; -1 for no role. */
+/** Rank in the role ladder (schema/vocabulary.ts: viewer < logger < engineer < lead); -1 for none. */
 export function roleRank(role: ProjectRole | null | undefined): number {
-  return role ? projectRoles.indexOf(role) : -1
+  return role ? ladderRank(role) : -1
 }
 
 /** True when `role` is at least `minimum`. */

@@ -1,7 +1,7 @@
 import { ref } from 'vue'
 import { createUser, listUsers, updateUser } from '../api/users'
 import type { AdminUser, UserCreate, UserUpdate } from '../api/types'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 
 /** Page state of user administration. */
 export function useAdminUsers() {

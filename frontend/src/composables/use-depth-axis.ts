@@ -1,6 +1,5 @@
 import { computed, ref } from 'vue'
-
-export type DepthRange = [number, number]
+import type { DepthRange } from '../logic/track/track-types'
 
 /** Shortest depth span the view zooms to (m). */
 const MIN_SPAN = 0.5

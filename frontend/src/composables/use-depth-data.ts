@@ -19,7 +19,7 @@ import type {
   Domain,
   Interval,
 } from '../api/interval-types'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 import { useAuthStore } from '../stores/auth'
 import { useNotFound } from './use-not-found'
 

@@ -1,10 +1,9 @@
 import { computed, ref, type Ref } from 'vue'
 import { structureTypes } from '../../../schema/vocabulary'
 import type { DepthStructure, StructureSource } from '../api/interval-types'
-import type { DepthRange } from './use-depth-axis'
-import type { NetPole } from '../components/net/net-types'
-import type { TrackStructure } from '../components/track/track-types'
-import { symbolOf } from '../components/track/structure-symbols'
+import type { NetPole } from '../logic/net/net-types'
+import type { DepthRange, TrackStructure } from '../logic/track/track-types'
+import { symbolOf } from '../logic/track/structure-symbols'
 
 export const confidenceLevels = ['high', 'medium', 'low', 'unrated'] as const
 export type ConfidenceLevel = (typeof confidenceLevels)[number]

@@ -1,9 +1,7 @@
 import { computed, onBeforeUnmount, onMounted, ref, type Ref } from 'vue'
 import type { useDepthData } from './use-depth-data'
 import type { useDepthFilters } from './use-depth-filters'
-import type { DepthRange } from './use-depth-axis'
-import type { PanelCurve } from '../components/track/TrackPanel.vue'
-import type { TrackInterval } from '../components/track/track-types'
+import type { DepthRange, PanelCurve, TrackInterval } from '../logic/track/track-types'
 
 /** Room above and below the tracks (header, toolbar, filters), in pixels. */
 const CHROME = 330

@@ -1,6 +1,6 @@
 import { ref } from 'vue'
 import { listDeletedHoles, purgeHole, restoreHole, type DeletedHole } from '../api/holes'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 
 /** The project's bin of deleted holes: list, restore (leads), purge (administrators). */
 export function useHoleBin(projectId: () => string, onRestored: () => Promise<void> | void) {

@@ -1,8 +1,8 @@
 import { ref } from 'vue'
 import { isApiError } from '../api/client'
 import type { Structure, StructureInput } from '../api/types'
-import { describeError } from '../components/format'
-import { changedFields, draftFromStructure, type EntryDraft } from '../components/hole/entry-fields'
+import { describeError } from '../logic/format'
+import { changedFields, draftFromStructure, type EntryDraft } from '../logic/hole/entry-fields'
 import { fieldErrors, idleState, type RowState } from './use-hole-entry-queue'
 import type { HoleStructures } from './use-hole-structures'
 

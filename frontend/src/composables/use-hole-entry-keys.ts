@@ -5,7 +5,7 @@ import {
   type EntryField,
   type EntrySource,
   type ParsedEntry,
-} from '../components/hole/entry-fields'
+} from '../logic/hole/entry-fields'
 
 export interface EntryKeyOptions {
   /** Prefix of the row's input ids (several rows can be on the page: new and edited). */

@@ -1,13 +1,8 @@
 import { computed, ref } from 'vue'
 import { isApiError } from '../api/client'
 import type { Structure, StructureInput } from '../api/types'
-import { describeError } from '../components/format'
-import type {
-  EntryDraft,
-  EntryErrors,
-  EntryField,
-  EntrySource,
-} from '../components/hole/entry-fields'
+import { describeError } from '../logic/format'
+import type { EntryDraft, EntryErrors, EntryField, EntrySource } from '../logic/hole/entry-fields'
 
 /** The state of one row being typed (the new row, a saved row edited in place, a failed save). */
 export interface RowState {

@@ -1,17 +1,17 @@
 import { computed } from 'vue'
 import type { ComputeContext, StructureComputed } from '../../../orient/index'
 import type { Structure, StructureInput } from '../api/types'
-import { beyondFinalDepth } from '../components/hole/entry-depth'
+import { beyondFinalDepth } from '../logic/hole/entry-depth'
 import {
   parseEntry,
   parseNumber,
   type EntryDraft,
   type EntrySource,
   type ParsedEntry,
-} from '../components/hole/entry-fields'
-import { pickStructureType } from '../components/hole/entry-choices'
-import { previewStructure } from '../components/hole/entry-preview'
-import { entryNotes } from '../components/hole/entry-warnings'
+} from '../logic/hole/entry-fields'
+import { pickStructureType } from '../logic/hole/entry-choices'
+import { previewStructure } from '../logic/hole/entry-preview'
+import { entryNotes } from '../logic/hole/entry-warnings'
 
 const inRange = (v: number | undefined, max: number): v is number =>
   v !== undefined && !Number.isNaN(v) && v >= 0 && v <= max

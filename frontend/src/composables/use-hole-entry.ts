@@ -1,15 +1,15 @@
 import { ref } from 'vue'
 import { isApiError } from '../api/client'
 import type { Structure, StructureInput } from '../api/types'
-import { describeError } from '../components/format'
-import { suggestDepth } from '../components/hole/entry-depth'
+import { describeError } from '../logic/format'
+import { suggestDepth } from '../logic/hole/entry-depth'
 import {
   draftFromStructure,
   emptyDraft,
   type EntryDraft,
   type EntryField,
   type EntrySource,
-} from '../components/hole/entry-fields'
+} from '../logic/hole/entry-fields'
 import { useHoleEntryEdit } from './use-hole-entry-edit'
 import { useHoleEntryQueue, type PendingRow } from './use-hole-entry-queue'
 import type { HoleStructures } from './use-hole-structures'

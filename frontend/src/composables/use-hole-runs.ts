@@ -2,7 +2,7 @@ import { computed, ref } from 'vue'
 import { addRun, deleteRun, listRuns, updateRun } from '../api/logging'
 import { isApiError } from '../api/client'
 import type { Run } from '../api/types'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 import {
   isDirty,
   newRunRow,
@@ -11,7 +11,7 @@ import {
   type RunErrors,
   type RunField,
   type RunRow,
-} from '../components/hole/run-rows'
+} from '../logic/hole/run-rows'
 
 export interface RunRowState {
   busy: boolean

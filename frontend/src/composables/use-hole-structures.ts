@@ -8,7 +8,7 @@ import {
 } from '../api/logging'
 import { isApiError } from '../api/client'
 import type { Structure, StructureInput } from '../api/types'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 
 const byDepth = (a: Structure, b: Structure) => a.depth - b.depth || a.id - b.id
 

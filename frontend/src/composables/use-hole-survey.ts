@@ -4,7 +4,7 @@ import { getProject } from '../api/projects'
 import { isApiError } from '../api/client'
 import type { Hole, LoggingProject, Station } from '../api/types'
 import { useAuthStore } from '../stores/auth'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 import {
   newRowKey,
   rowErrors,
@@ -14,7 +14,7 @@ import {
   type SurveyField,
   type SurveyRow,
   type SurveyValue,
-} from '../components/hole/survey-rows'
+} from '../logic/hole/survey-rows'
 import { useNotFound } from './use-not-found'
 
 /** Page state of a hole: its header, the saved survey, and the draft rows being edited. */

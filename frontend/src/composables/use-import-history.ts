@@ -1,7 +1,7 @@
 import { computed, onBeforeUnmount, ref } from 'vue'
 import { commitImport, getImport, listImports, undoImport } from '../api/imports'
 import type { ImportRecord, ImportUndone } from '../api/types'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 import { isRunning } from './use-import-progress'
 
 const POLL_MS = 1000

@@ -1,7 +1,7 @@
 import { onBeforeUnmount, ref } from 'vue'
 import { getImport } from '../api/imports'
 import type { ImportRecord } from '../api/types'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 
 const POLL_MS = 1000
 export const isRunning = (r: { status: string }) =>

@@ -2,9 +2,9 @@ import { computed, ref, shallowRef } from 'vue'
 import { commitImport, uploadImport } from '../api/imports'
 import { isApiError } from '../api/client'
 import type { CsvImportKind, ErrorDetail, ImportPreview, ImportRecord } from '../api/types'
-import { describeError } from '../components/format'
-import { importKinds, initialOptions, optionsToSend } from '../components/imports/import-kinds'
-import { guessMapping, sniffHeaders } from '../components/imports/import-problems'
+import { describeError } from '../logic/format'
+import { importKinds, initialOptions, optionsToSend } from '../logic/imports/import-kinds'
+import { guessMapping, sniffHeaders } from '../logic/imports/import-problems'
 import { useImportProgress } from './use-import-progress'
 
 export type ImportStage = 'pick' | 'problems' | 'preview' | 'following' | 'done'
@@ -187,5 +187,3 @@ export function useImport(
     reset,
   }
 }
-
-export type CsvImport = ReturnType<typeof useImport>

@@ -21,7 +21,7 @@ import type {
   SetCreate,
   StructureSource,
 } from '../api/interval-types'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 import { useAuthStore } from '../stores/auth'
 import { useIntervalSettings } from './use-interval-settings'
 import { useNotFound } from './use-not-found'

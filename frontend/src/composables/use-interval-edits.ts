@@ -1,6 +1,6 @@
 import { computed, ref, watch } from 'vue'
 import { useConfirm } from 'primevue/useconfirm'
-import type { Line } from '../components/net/net-geometry'
+import type { Line } from '../logic/net/net-geometry'
 import type { AnalysisSet, SetCreate } from '../api/interval-types'
 import type { useIntervalData } from './use-interval-data'
 import type { useIntervalNet } from './use-interval-net'

@@ -1,10 +1,10 @@
 import { computed, ref, watch, type Ref, type ShallowRef } from 'vue'
 import type { Analysis, AnalysisSettings } from '../api/interval-types'
-import type { NetProjection } from '../components/net/net-geometry'
-import type { DensityMethod } from '../components/net/net-contours'
-import type { ZoneMode } from '../components/net/net-kinematic-zones'
-import { setColour } from '../components/net/set-palette'
-import type * as T from '../components/net/net-types'
+import type { NetProjection } from '../logic/net/net-geometry'
+import type { DensityMethod } from '../logic/net/net-contours'
+import type { ZoneMode } from '../logic/net/net-kinematic-zones'
+import { setColour } from '../logic/net/set-palette'
+import type * as T from '../logic/net/net-types'
 
 /**
  * What the interval's net draws, from the server's analysis, and the display choices around it:

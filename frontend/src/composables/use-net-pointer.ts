@@ -1,6 +1,6 @@
 import { computed, ref, type Ref } from 'vue'
 import { pointer, polygonContains, quadtree } from 'd3'
-import type { NetTool } from '../components/net/net-types'
+import type { NetTool } from '../logic/net/net-types'
 
 /** Net positions of the plotted poles, by index, with their structure ids. */
 export interface PointerTargets {

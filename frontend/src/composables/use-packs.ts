@@ -9,8 +9,8 @@ import {
   type PackDetail,
   type PackSelection,
   type PackSummary,
-} from '../../api/packs'
-import { describeError } from '../format'
+} from '../api/packs'
+import { describeError } from '../logic/format'
 
 const active = (p: { status: string }) => p.status === 'queued' || p.status === 'building'
 

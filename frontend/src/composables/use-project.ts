@@ -18,7 +18,7 @@ import type {
   ProjectWithRole,
 } from '../api/types'
 import { useAuthStore } from '../stores/auth'
-import { describeError } from '../components/format'
+import { describeError } from '../logic/format'
 import { useNotFound } from './use-not-found'
 
 /** Page state of a project's home: its settings, holes and members, and the edits on them. */

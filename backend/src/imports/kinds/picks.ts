@@ -1,7 +1,17 @@
 import { z } from 'zod'
-import { parseStructureType, type StructureType } from '../../../../schema/index'
+import {
+  depthUnits,
+  imageAzimuthReferences,
+  importFieldSpecs,
+  importOptionSpecs,
+  northReferences,
+  parseStructureType,
+  pickLengthUnits,
+  type StructureType,
+} from '../../../../schema/index'
 import type { FieldSpec } from '../csv-rows'
 
+const asked = importOptionSpecs.picks
 /**
  * How a file of image-log picks is given: the sinusoid (amplitude, diameter, trough azimuth) or a
  * relative dip and dip direction; image azimuths from the high side or from north (magnetic or
@@ -9,42 +19,17 @@ import type { FieldSpec } from '../csv-rows'
  */
 export const PickImportOptions = z
   .object({
-    azimuthReference: z.enum(['highside', 'north']).default('highside'),
-    northReference: z.enum(['magnetic', 'true']).default('magnetic'),
-    lengthUnit: z.enum(['mm', 'm', 'in']).default('mm'),
-    depthUnit: z.enum(['m', 'ft']).default('m'),
+    azimuthReference: z.enum(imageAzimuthReferences).default(asked.azimuthReference.initial),
+    northReference: z.enum(northReferences).default(asked.northReference.initial),
+    lengthUnit: z.enum(pickLengthUnits).default(asked.lengthUnit.initial),
+    depthUnit: z.enum(depthUnits).default(asked.depthUnit.initial),
     /** Borehole diameter for files that give relative dips without a diameter column. */
     holeDiameter: z.number().positive().optional(),
   })
   .strict()
 export type PickImportOptionsT = z.infer<typeof PickImportOptions>
 
-export const pickFieldSpecs: FieldSpec[] = [
-  { name: 'depth', kind: 'number', required: true, aliases: ['md', 'depth_m'] },
-  { name: 'type', kind: 'text', required: false, aliases: ['pick_type', 'feature', 'class'] },
-  { name: 'amplitude', kind: 'number', required: false, aliases: ['height', 'h', 'amp'] },
-  { name: 'diameter', kind: 'number', required: false, aliases: ['d', 'caliper', 'bit_size'] },
-  {
-    name: 'troughAzimuth',
-    kind: 'number',
-    required: false,
-    aliases: ['trough', 'trough_azimuth', 'azimuth'],
-  },
-  {
-    name: 'relativeDip',
-    kind: 'number',
-    required: false,
-    aliases: ['rel_dip', 'relative_dip', 'apparent_dip'],
-  },
-  {
-    name: 'relativeDipDirection',
-    kind: 'number',
-    required: false,
-    aliases: ['rel_dip_dir', 'relative_dip_direction', 'rel_azimuth'],
-  },
-  { name: 'quality', kind: 'text', required: false, aliases: ['confidence', 'qual'] },
-  { name: 'comment', kind: 'text', required: false, aliases: ['comments', 'remarks'] },
-]
+export const pickFieldSpecs: readonly FieldSpec[] = importFieldSpecs.picks
 
 /** A pick in the file's stated conventions, lengths in millimetres; north azimuths not yet corrected. */
 export interface PickRow {

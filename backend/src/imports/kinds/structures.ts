@@ -1,6 +1,12 @@
 import { z } from 'zod'
 import {
+  alphaConventions,
+  betaApexes,
   confidences,
+  depthUnits,
+  enteredSources,
+  importFieldSpecs,
+  importOptionSpecs,
   parseStructureType,
   persistenceClasses,
   referenceLines,
@@ -13,64 +19,20 @@ import {
 } from '../../../../schema/index'
 import type { FieldSpec } from '../csv-rows'
 
+const asked = importOptionSpecs.structures
 /** How the file's angles and depths are given; converted once, here, and recorded on the import. */
 export const StructureImportOptions = z
   .object({
-    mode: z.enum(['core', 'true']).default('core'),
+    mode: z.enum(enteredSources).default(asked.mode.initial),
     referenceLine: z.enum(referenceLines).optional(),
-    /** 'core-axis-to-pole' files hold 90 − alpha. */
-    alphaConvention: z.enum(['alpha', 'core-axis-to-pole']).default('alpha'),
-    /** 'up-hole' files measure beta to the up-hole apex: beta ± 180. */
-    betaApex: z.enum(['down-hole', 'up-hole']).default('down-hole'),
-    depthUnit: z.enum(['m', 'ft']).default('m'),
+    alphaConvention: z.enum(alphaConventions).default(asked.alphaConvention.initial),
+    betaApex: z.enum(betaApexes).default(asked.betaApex.initial),
+    depthUnit: z.enum(depthUnits).default(asked.depthUnit.initial),
   })
   .strict()
 export type StructureImportOptionsT = z.infer<typeof StructureImportOptions>
 
-export const structureFieldSpecs: FieldSpec[] = [
-  {
-    name: 'depth',
-    kind: 'number',
-    required: true,
-    aliases: ['depth_m', 'md', 'from', 'depth (m)'],
-  },
-  {
-    name: 'type',
-    kind: 'text',
-    required: true,
-    aliases: ['structure', 'struct_type', 'kind', 'code'],
-  },
-  { name: 'alpha', kind: 'number', required: false, aliases: ['alpha_deg', 'a'] },
-  { name: 'beta', kind: 'number', required: false, aliases: ['beta_deg', 'b'] },
-  { name: 'gamma', kind: 'number', required: false, aliases: ['gamma_deg', 'g'] },
-  { name: 'dip', kind: 'number', required: false, aliases: ['true_dip'] },
-  {
-    name: 'dipDirection',
-    kind: 'number',
-    required: false,
-    aliases: ['dip_direction', 'dipdir', 'dip_dir', 'dd'],
-  },
-  { name: 'roughness', kind: 'text', required: false, aliases: ['roughness_class', 'rough'] },
-  { name: 'jrc', kind: 'number', required: false, aliases: [] },
-  { name: 'apertureMm', kind: 'number', required: false, aliases: ['aperture', 'aperture_mm'] },
-  { name: 'infillType', kind: 'text', required: false, aliases: ['infill', 'infill_type'] },
-  {
-    name: 'infillThicknessMm',
-    kind: 'number',
-    required: false,
-    aliases: ['infill_thickness', 'infill_mm'],
-  },
-  { name: 'persistence', kind: 'text', required: false, aliases: [] },
-  {
-    name: 'wallWeathering',
-    kind: 'text',
-    required: false,
-    aliases: ['weathering', 'wall_weathering'],
-  },
-  { name: 'state', kind: 'text', required: false, aliases: ['open_closed'] },
-  { name: 'confidence', kind: 'text', required: false, aliases: [] },
-  { name: 'comment', kind: 'text', required: false, aliases: ['comments', 'remarks', 'note'] },
-]
+export const structureFieldSpecs: readonly FieldSpec[] = importFieldSpecs.structures
 
 const lower = <T extends readonly string[]>(values: T) =>
   z.preprocess((v) => (typeof v === 'string' ? v.trim().toLowerCase() : v), z.enum(values))

@@ -1,42 +1,31 @@
 import { z } from 'zod'
-import { azimuthReferences, StationInput, type StationInputT } from '../../../../schema/index'
+import {
+  azimuthReferences,
+  depthUnits,
+  importFieldSpecs,
+  importOptionSpecs,
+  plungeConventions,
+  StationInput,
+  type PlungeConvention,
+  type StationInputT,
+} from '../../../../schema/index'
 import type { FieldSpec } from '../csv-rows'
 import { validateWith } from './pipe'
 
-/** How the file gives inclination: plunge positive down, dip negative down, or from vertical. */
-export const plungeConventions = [
-  'plunge-down',
-  'dip-negative-down',
-  'inclination-from-vertical',
-] as const
-
+const asked = importOptionSpecs.survey
 export const SurveyImportOptions = z
   .object({
-    plungeConvention: z.enum(plungeConventions).default('plunge-down'),
-    azimuthReference: z.enum(azimuthReferences).default('magnetic'),
-    depthUnit: z.enum(['m', 'ft']).default('m'),
+    plungeConvention: z.enum(plungeConventions).default(asked.plungeConvention.initial),
+    azimuthReference: z.enum(azimuthReferences).default(asked.azimuthReference.initial),
+    depthUnit: z.enum(depthUnits).default(asked.depthUnit.initial),
   })
   .strict()
 export type SurveyImportOptionsT = z.infer<typeof SurveyImportOptions>
 
-export const surveyFieldSpecs: FieldSpec[] = [
-  { name: 'depth', kind: 'number', required: true, aliases: ['md', 'depth_m', 'station'] },
-  { name: 'azimuth', kind: 'number', required: true, aliases: ['azi', 'az', 'bearing'] },
-  {
-    name: 'plunge',
-    kind: 'number',
-    required: true,
-    aliases: ['dip', 'inclination', 'incl', 'inc'],
-  },
-  { name: 'method', kind: 'text', required: false, aliases: ['tool', 'instrument'] },
-  { name: 'surveyedOn', kind: 'text', required: false, aliases: ['date', 'survey_date'] },
-]
+export const surveyFieldSpecs: readonly FieldSpec[] = importFieldSpecs.survey
 
 /** Inclination as given → plunge positive down (the one stored convention). */
-export function toPlungeDown(
-  value: number,
-  convention: (typeof plungeConventions)[number],
-): number {
+export function toPlungeDown(value: number, convention: PlungeConvention): number {
   if (convention === 'dip-negative-down') return -value
   if (convention === 'inclination-from-vertical') return 90 - value
   return value

@@ -94,9 +94,3 @@ export function primitiveTicks(radius: number, step = 10) {
   }
   return ticks
 }
-
-/** Radius on the net of the lines plunging `plunge` degrees (a circle about the centre). */
-export function radiusAtPlunge(plunge: number, projection: NetProjection, radius: number) {
-  const p = project({ trend: 0, plunge }, projection)
-  return p ? Math.hypot(p.x, p.y) * radius : 0
-}

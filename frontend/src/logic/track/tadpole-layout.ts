@@ -1,9 +1,8 @@
 // Where each tadpole goes in a track, as a few paths per structure type (thousands of tadpoles stay
 // a handful of SVG elements) plus the positions the pointer searches.
 import { scaleLinear } from 'd3'
-import type { DepthRange } from '../../composables/use-depth-axis'
 import { flaggedColour, symbolOf, symbolPath, tailEnd } from './structure-symbols'
-import type { TrackStructure } from './track-types'
+import type { DepthRange, TrackStructure } from './track-types'
 
 /** Width of the lane of unoriented structures at the left of the track (px). */
 export const UNORIENTED_LANE = 22

@@ -1,4 +1,8 @@
 // Plain data the tracks draw: the depth view turns API rows into these, tests pass them directly.
+
+/** [top, bottom] in metres along hole. */
+export type DepthRange = [number, number]
+
 export interface TrackStructure {
   id: number
   depth: number
@@ -22,6 +26,15 @@ export interface TrackInterval {
   fromDepth: number
   toDepth: number
   status: string
+}
+
+/** One LAS curve as its track draws it: values beside depths, null where the file has none. */
+export interface PanelCurve {
+  id: number
+  mnemonic: string
+  unit: string
+  depths: number[]
+  values: (number | null)[]
 }
 
 /** Height of every track's header (title, unit, value scale), in pixels. */

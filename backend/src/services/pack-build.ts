@@ -3,9 +3,9 @@ import { z } from 'zod'
 import { packFiles, packs, projects, users } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { ApiError } from '../http/errors'
+import { buildPackFiles } from '../exports/pack-files'
+import { holdLease, leaseEnd, leaseFree, newAttempt } from './leases'
 import { loadPackData } from './pack-data'
-import { buildPackFiles } from './pack-files'
-import { holdLease, leaseEnd, leaseFree, newAttempt } from '../services/leases'
 
 /** The request body of a pack build; an empty body packs the whole project. */
 export const PackSelectionBody = z

@@ -3,9 +3,9 @@ import { memberships, users } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { hashPassword } from '../auth/passport'
 import { ApiError, badRequest } from '../http/errors'
-import { audit } from '../services/audit'
-import { assertUsable, claimToken, findToken } from '../services/tokens'
+import { audit } from './audit'
 import { userByEmail } from './invitations'
+import { assertUsable, claimToken, findToken } from './tokens'
 
 /**
  * Accepts an invitation: creates the account (or, for an existing one, checks its password),

@@ -2,10 +2,10 @@ import { and, eq, sql } from 'drizzle-orm'
 import { memberships, projects, users, type ProjectRole } from '../../../schema/index'
 import type { Db, Executor } from '../db/client'
 import { conflict, forbidden, notFound } from '../http/errors'
-import { audit } from '../services/audit'
-import { assertUsable, findToken, INVITE_TTL_HOURS, issueToken } from '../services/tokens'
-import { invitationMail } from './messages'
-import { appLink, mailLogger, sendMail } from './transport'
+import { invitationMail } from '../mail/messages'
+import type { Mailer } from '../mail/transport'
+import { audit } from './audit'
+import { assertUsable, findToken, INVITE_TTL_HOURS, issueToken } from './tokens'
 
 export interface InvitationInput {
   email: string
@@ -42,7 +42,12 @@ async function checkInviter(db: Db, actor: Express.User, projectId?: number) {
 }
 
 /** Creates an invitation, mails its link and says whether the mail went out. */
-export async function createInvitation(db: Db, actor: Express.User, input: InvitationInput) {
+export async function createInvitation(
+  db: Db,
+  mail: Mailer,
+  actor: Express.User,
+  input: InvitationInput,
+) {
   const projectName = await checkInviter(db, actor, input.projectId)
   const role = input.projectId === undefined ? null : (input.role ?? 'viewer')
   const existing = await userByEmail(db, input.email)
@@ -74,8 +79,8 @@ export async function createInvitation(db: Db, actor: Express.User, input: Invit
     })
     return issued
   })
-  const link = appLink(`/invitations/accept?token=${token}`)
-  const mail = invitationMail({
+  const link = mail.link(`/invitations/accept?token=${token}`)
+  const content = invitationMail({
     inviterName: actor.name,
     projectName,
     role,
@@ -84,10 +89,10 @@ export async function createInvitation(db: Db, actor: Express.User, input: Invit
   })
   let mailed = true
   try {
-    await sendMail({ to: input.email, ...mail })
+    await mail.send({ to: input.email, ...content })
   } catch (err: unknown) {
     mailed = false
-    mailLogger().warn({ err, invitationId: row.id }, 'invitation mail not sent')
+    mail.logger.warn({ err, invitationId: row.id }, 'invitation mail not sent')
   }
   const { id, email, projectId, expiresAt } = row
   return { id, email, projectId, role: row.role, expiresAt, mailed }

@@ -1,8 +1,8 @@
 import { and, eq, inArray, or } from 'drizzle-orm'
 import { memberships, projects, users, type ProjectRole } from '../../../schema/index'
 import type { Db } from '../db/client'
-import { notificationMail } from './messages'
-import { appLink, mailLogger, sendMail } from './transport'
+import { notificationMail } from '../mail/messages'
+import type { Mailer } from '../mail/transport'
 
 export interface ProjectNotice {
   projectId: number
@@ -23,6 +23,7 @@ export interface ProjectNotice {
  */
 export async function notifyProject(
   db: Db,
+  mail: Mailer,
   n: {
     projectId: number
     roles?: ProjectRole[]
@@ -58,22 +59,22 @@ export async function notifyProject(
           or(...conditions),
         ),
       )
-    const mail = notificationMail({
+    const content = notificationMail({
       projectName: project.name,
       subject: notice.subject,
       text: notice.text,
-      link: notice.link ? appLink(notice.link) : undefined,
+      link: notice.link ? mail.link(notice.link) : undefined,
     })
     const results = await Promise.allSettled(
-      recipients.map((r) => sendMail({ to: r.email, ...mail })),
+      recipients.map((r) => mail.send({ to: r.email, ...content })),
     )
     results.forEach((r, i) => {
       if (r.status === 'rejected')
-        mailLogger().warn({ err: r.reason, to: recipients[i].email }, 'notification not sent')
+        mail.logger.warn({ err: r.reason, to: recipients[i].email }, 'notification not sent')
     })
     return results.filter((r) => r.status === 'fulfilled').length
   } catch (err: unknown) {
-    mailLogger().error({ err, projectId: notice.projectId }, 'notifications not sent')
+    mail.logger.error({ err, projectId: notice.projectId }, 'notifications not sent')
     return 0
   }
 }

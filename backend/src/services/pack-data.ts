@@ -7,52 +7,22 @@ import {
   structures,
   structureSets,
   surveyStations,
-  type Hole,
-  type Interval,
   type Project,
-  type Structure,
-  type SurveyStation,
 } from '../../../schema/index'
 import type { Executor } from '../db/client'
 import { badRequest } from '../http/errors'
-import { analyseInterval } from '../services/analysis'
-import { settingsOf, type AnalysisSettings } from '../services/intervals'
-import { isApproved, signOffsOf, type SignOff } from './sign-off'
-import { listRuns } from '../services/runs'
-import { sha256Hex, canonicalJson } from './hash'
-import { intervalRunSummary, type RunSummary } from './run-summary'
+import { sha256Hex, canonicalJson } from '../exports/hash'
+import type { PackData, PackInterval, RunWithMetrics } from '../exports/pack-types'
+import { intervalRunSummary } from '../exports/run-summary'
+import { isApproved } from '../exports/sign-off'
+import { analyseInterval } from './analysis'
+import { settingsOf } from './intervals'
+import { listRuns } from './runs'
+import { signOffsOf } from './sign-offs'
 
 export interface PackSelection {
   holeIds?: number[]
   intervalIds?: number[]
-}
-
-export type Analysis = Awaited<ReturnType<typeof analyseInterval>>
-export type RunWithMetrics = Awaited<ReturnType<typeof listRuns>>[number]
-
-export interface PackInterval {
-  interval: Interval
-  hole: Hole
-  domain: string
-  analysis: Analysis
-  /** The interval's saved settings, which its analysis used. */
-  settings: AnalysisSettings
-  signOff: SignOff
-  runs: RunSummary
-}
-
-export interface PackData {
-  project: Project
-  holes: Hole[]
-  stations: SurveyStation[]
-  runs: Map<number, RunWithMetrics[]>
-  structures: Structure[]
-  intervals: PackInterval[]
-  /** Structure id → its interval and set names (first interval that holds it). */
-  assignment: Map<number, { interval: string; intervalId: number; set: string }>
-  /** Some packed interval is not approved: every file says DRAFT and the pack is never issued. */
-  draft: boolean
-  inputsHash: string
 }
 
 /**

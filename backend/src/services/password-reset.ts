@@ -2,17 +2,17 @@ import { and, eq, isNull, ne, sql } from 'drizzle-orm'
 import { authTokens, sessions, users } from '../../../schema/index'
 import type { Db } from '../db/client'
 import { hashPassword } from '../auth/passport'
-import { audit } from '../services/audit'
-import { claimToken, issueToken, RESET_TTL_MINUTES, tokenInvalid } from '../services/tokens'
-import { resetMail } from './messages'
-import { appLink, mailLogger, sendMail } from './transport'
+import { resetMail } from '../mail/messages'
+import type { Mailer } from '../mail/transport'
+import { audit } from './audit'
+import { claimToken, issueToken, RESET_TTL_MINUTES, tokenInvalid } from './tokens'
 
 /**
  * Issues and mails a reset link when the e-mail belongs to an enabled account; otherwise does
  * nothing. The mail is sent in the background so both paths answer in about the same time and
  * the answer never tells whether the account exists.
  */
-export async function requestPasswordReset(db: Db, email: string): Promise<void> {
+export async function requestPasswordReset(db: Db, mail: Mailer, email: string): Promise<void> {
   const [user] = await db
     .select()
     .from(users)
@@ -34,11 +34,11 @@ export async function requestPasswordReset(db: Db, email: string): Promise<void>
     })
     return issued
   })
-  const link = appLink(`/reset-password?token=${token}`)
-  const mail = resetMail({ name: user.name, link, minutes: RESET_TTL_MINUTES })
-  void sendMail({ to: user.email, ...mail }).catch((err: unknown) =>
-    mailLogger().warn({ err, tokenId: row.id }, 'reset mail not sent'),
-  )
+  const link = mail.link(`/reset-password?token=${token}`)
+  const content = resetMail({ name: user.name, link, minutes: RESET_TTL_MINUTES })
+  void mail
+    .send({ to: user.email, ...content })
+    .catch((err: unknown) => mail.logger.warn({ err, tokenId: row.id }, 'reset mail not sent'))
 }
 
 /**
