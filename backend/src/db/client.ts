@@ -24,6 +24,9 @@ export function createDb(
     connectionTimeoutMillis: connectTimeoutMs,
   })
   pool.on('error', onError)
+  // A connection that dies while checked out (a query in flight when PostgreSQL is killed) emits
+  // 'error' on its client, where pg-pool has no listener: without one the process would crash.
+  pool.on('connect', (client) => client.on('error', onError))
   const db = drizzle(pool, { schema })
   return { pool, db }
 }
