@@ -6,7 +6,7 @@ import { inputOf, validate } from '../http/validate'
 import { idempotencyOf } from '../http/idempotency-key'
 import type { ProjectDeps } from './deps'
 import {
-  addRunOnce,
+  addRun,
   checkRunSequence,
   deleteRun,
   listRuns,
@@ -40,7 +40,7 @@ export function runsRouter({ db, mail }: Pick<ProjectDeps, 'db' | 'mail'>): Rout
     const { body } = inputOf(res, { body: RunInput })
     const key = idempotencyOf(req, body)
     const { project } = projectLocals(res)
-    const answer = await addRunOnce(db, mail, req.user!.id, project, holeLocals(res), body, key)
+    const answer = await addRun(db, mail, req.user!.id, project, holeLocals(res), body, key)
     if (answer.replayed) res.set('Idempotent-Replayed', 'true')
     res.status(answer.status).json(answer.body)
   })

@@ -7,7 +7,7 @@ import { inputOf, validate } from '../http/validate'
 import { idempotencyOf } from '../http/idempotency-key'
 import type { ProjectDeps } from './deps'
 import {
-  createStructureOnce,
+  createStructure,
   deleteStructure,
   getStructure,
   listStructures,
@@ -33,7 +33,7 @@ export function structuresRouter({ db, mail }: Pick<ProjectDeps, 'db' | 'mail'>)
   router.post('/', requireRole('logger'), validate({ body: StructureInput }), async (req, res) => {
     const { body } = inputOf(res, { body: StructureInput })
     const key = idempotencyOf(req, body)
-    const answer = await createStructureOnce(
+    const answer = await createStructure(
       db,
       mail,
       actorOf(req, res),

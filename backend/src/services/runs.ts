@@ -114,19 +114,8 @@ export const replaceRuns = (
     replaceRunsIn(tx, actorId, project, hole, runs, demoted),
   )
 
+/** Adds one run, at most once per idempotency key (as `createStructure`). */
 export async function addRun(
-  db: Db,
-  mail: Mailer,
-  actorId: number,
-  project: Project,
-  hole: Hole,
-  input: RunInputT,
-) {
-  return (await addRunOnce(db, mail, actorId, project, hole, input)).body.data
-}
-
-/** Adds one run, at most once per idempotency key (as `createStructureOnce`). */
-export async function addRunOnce(
   db: Db,
   mail: Mailer,
   actorId: number,

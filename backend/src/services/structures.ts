@@ -89,23 +89,11 @@ async function reread(tx: Tx, id: number): Promise<Structure> {
 
 const at = (depth: number) => `${depth} m`
 
-/** Adds one structure; see `createStructureOnce` for retries with an Idempotency-Key. */
-export async function createStructure(
-  db: Db,
-  mail: Mailer,
-  actor: Actor,
-  project: Project,
-  hole: Hole,
-  input: StructureInputT,
-): Promise<Structure> {
-  return (await createStructureOnce(db, mail, actor, project, hole, input)).body.data
-}
-
 /**
  * Adds one structure, at most once per idempotency key: a retry after a lost answer gets the
  * first answer again and stores nothing (the key is kept in the write's own transaction).
  */
-export async function createStructureOnce(
+export async function createStructure(
   db: Db,
   mail: Mailer,
   actor: Actor,
