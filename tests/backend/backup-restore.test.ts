@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { execFileSync } from 'node:child_process'
 import { existsSync, mkdtempSync, rmSync, statSync, chmodSync } from 'node:fs'
-import { createServer, type AddressInfo } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { eq, sql } from 'drizzle-orm'
@@ -10,18 +9,7 @@ import { runMigrations } from '../../backend/src/db/migrate'
 import { seedDemo } from '../../backend/src/db/seed-demo'
 import { contentHashOf, sha256Hex } from '../../backend/src/exports/hash'
 import { packFiles, packs, projects } from '../../schema/index'
-
-// `npm run backup` from one scratch cluster, `npm run restore` into an empty second one: every
-// table's rows and one issued pack's hashes come back unchanged.
-async function freePort(): Promise<number> {
-  const s = createServer()
-  await new Promise<void>((resolve) => s.listen(0, '127.0.0.1', resolve))
-  const { port } = s.address() as AddressInfo
-  await new Promise<void>((resolve) => s.close(() => resolve()))
-  return port
-}
-const scratch = (...args: string[]) =>
-  execFileSync('bash', ['backend/scripts/pg-scratch.sh', ...args], { stdio: 'pipe' })
+import { freePort, scratch } from './scratch'
 
 async function rowCounts(db: Db): Promise<Record<string, number>> {
   const { rows } = await db.execute<{ t: string }>(

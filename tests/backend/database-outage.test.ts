@@ -1,27 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { execFileSync, spawn, type ChildProcess } from 'node:child_process'
+import { spawn, type ChildProcess } from 'node:child_process'
 import { mkdtempSync } from 'node:fs'
-import { createServer, type AddressInfo } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { createDb } from '../../backend/src/db/client'
 import { runMigrations } from '../../backend/src/db/migrate'
 import { hashPassword } from '../../backend/src/auth/passport'
 import { users } from '../../schema/index'
+import { freePort, scratch } from './scratch'
 
 // A real server process against a scratch cluster of its own: the database is stopped and started
 // under it, and the same Node process must answer 503 meanwhile and 200 again afterwards.
-const scratch = (...args: string[]) =>
-  execFileSync('bash', ['backend/scripts/pg-scratch.sh', ...args], { stdio: 'pipe' })
-
-async function freePort(): Promise<number> {
-  const s = createServer()
-  await new Promise<void>((resolve) => s.listen(0, '127.0.0.1', resolve))
-  const { port } = s.address() as AddressInfo
-  await new Promise<void>((resolve) => s.close(() => resolve()))
-  return port
-}
-
 let dir: string
 let pgPort: number
 let base: string

@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { execFileSync, spawnSync } from 'node:child_process'
+import { spawnSync } from 'node:child_process'
 import { mkdtempSync, readFileSync } from 'node:fs'
-import { createServer, type AddressInfo } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { inArray } from 'drizzle-orm'
@@ -15,20 +14,11 @@ import { createLogger } from '../../backend/src/logger'
 import { createMailer } from '../../backend/src/mail/transport'
 import { holes, memberships, projects, structures, users } from '../../schema/index'
 import { holeValues } from './fixture'
+import { freePort, scratch } from './scratch'
 
 // kill -9 of PostgreSQL while writes pour in: every write the API acknowledged (201) is there
 // after crash recovery. The scratch cluster runs with fsync and synchronous commit ON, as the
 // real one does (the throwaway test clusters switch them off).
-const scratch = (...args: string[]) =>
-  execFileSync('bash', ['backend/scripts/pg-scratch.sh', ...args], { stdio: 'pipe' })
-async function freePort(): Promise<number> {
-  const s = createServer()
-  await new Promise<void>((resolve) => s.listen(0, '127.0.0.1', resolve))
-  const { port } = s.address() as AddressInfo
-  await new Promise<void>((resolve) => s.close(() => resolve()))
-  return port
-}
-
 let dir = ''
 let pgPort = 0
 let url = ''

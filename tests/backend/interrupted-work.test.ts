@@ -1,7 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { execFileSync, spawn, type ChildProcess } from 'node:child_process'
+import { spawn, type ChildProcess } from 'node:child_process'
 import { mkdtempSync } from 'node:fs'
-import { createServer, type AddressInfo } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { eq, sql } from 'drizzle-orm'
@@ -10,19 +9,11 @@ import { runMigrations } from '../../backend/src/db/migrate'
 import { hashPassword } from '../../backend/src/auth/passport'
 import { holes, imports, packs, projects, users } from '../../schema/index'
 import { holeValues } from './fixture'
+import { freePort, scratch } from './scratch'
 
 // A real server is killed (SIGKILL to its process group) in the middle of a background import
 // commit; a new server must show the import "failed — interrupted" within a minute, and
 // committing it again must store its rows exactly once.
-const scratch = (...args: string[]) =>
-  execFileSync('bash', ['backend/scripts/pg-scratch.sh', ...args], { stdio: 'pipe' })
-async function freePort(): Promise<number> {
-  const s = createServer()
-  await new Promise<void>((resolve) => s.listen(0, '127.0.0.1', resolve))
-  const { port } = s.address() as AddressInfo
-  await new Promise<void>((resolve) => s.close(() => resolve()))
-  return port
-}
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms))
 
 let dir = ''
@@ -125,6 +116,29 @@ afterAll(async () => {
   if (dir) scratch('down', dir)
 }, 60_000)
 
+/**
+ * Waits until the row is `running`, kills the server (SIGKILL to its group) a moment later,
+ * starts a new one and waits for the row to leave `running`: what it became, and how long that took.
+ */
+async function killMidWay(
+  status: () => Promise<{ status: string; message: string }>,
+  running: string,
+) {
+  for (let i = 0; i < 300 && (await status()).status !== running; i++) await sleep(50)
+  expect((await status()).status).toBe(running)
+  await sleep(300)
+  killServer('SIGKILL')
+  const killedAt = Date.now()
+  await startServer()
+  await signIn()
+  let seen = await status()
+  while (seen.status === running && Date.now() - killedAt < 70_000) {
+    await sleep(500)
+    seen = await status()
+  }
+  return { seen, toInterrupted: Date.now() - killedAt }
+}
+
 describe('work interrupted by a crash', () => {
   it('a background import commit killed mid-way → "failed — interrupted" within a minute on the next server; committing again stores it once', async () => {
     const lines = ['depth,type,alpha,beta']
@@ -139,20 +153,7 @@ describe('work interrupted by a crash', () => {
     const queued = await call('POST', `${H}/imports/${importId}/commit`, '{}', 'application/json')
     expect(queued.status).toBe(202)
     const status = async () => (await db.select().from(imports).where(eq(imports.id, importId)))[0]
-    for (let i = 0; i < 300 && (await status()).status !== 'committing'; i++) await sleep(50)
-    expect((await status()).status).toBe('committing')
-    await sleep(300)
-    killServer('SIGKILL')
-    const killedAt = Date.now()
-
-    await startServer()
-    await signIn()
-    let seen = await status()
-    while (seen.status === 'committing' && Date.now() - killedAt < 70_000) {
-      await sleep(500)
-      seen = await status()
-    }
-    const toInterrupted = Date.now() - killedAt
+    const { seen, toInterrupted } = await killMidWay(status, 'committing')
     expect(seen.status).toBe('failed')
     expect(seen.message).toMatch(/^failed — interrupted/)
     expect(toInterrupted).toBeLessThan(60_000)
@@ -178,20 +179,7 @@ describe('work interrupted by a crash', () => {
     expect(made.status).toBe(202)
     const packId = String(made.body.data.id)
     const status = async () => (await db.select().from(packs).where(eq(packs.id, packId)))[0]
-    for (let i = 0; i < 300 && (await status()).status !== 'building'; i++) await sleep(50)
-    expect((await status()).status).toBe('building')
-    await sleep(300)
-    killServer('SIGKILL')
-    const killedAt = Date.now()
-
-    await startServer()
-    await signIn()
-    let seen = await status()
-    while (seen.status === 'building' && Date.now() - killedAt < 70_000) {
-      await sleep(500)
-      seen = await status()
-    }
-    const toInterrupted = Date.now() - killedAt
+    const { seen, toInterrupted } = await killMidWay(status, 'building')
     expect(seen.status).toBe('failed')
     expect(seen.message).toMatch(/^failed — interrupted/)
     expect(toInterrupted).toBeLessThan(60_000)

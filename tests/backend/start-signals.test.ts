@@ -1,19 +1,9 @@
 import { afterAll, describe, expect, it } from 'vitest'
 import { spawn, spawnSync } from 'node:child_process'
 import { chmodSync, mkdtempSync, rmSync } from 'node:fs'
-import { createServer, type AddressInfo } from 'node:net'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
-
-// `npm start` in a process group of its own, sent SIGINT to the whole group as a terminal's Ctrl-C
-// does (npm then also sends TERM to the script): PostgreSQL must be stopped every time.
-async function freePort(): Promise<number> {
-  const s = createServer()
-  await new Promise<void>((resolve) => s.listen(0, '127.0.0.1', resolve))
-  const { port } = s.address() as AddressInfo
-  await new Promise<void>((resolve) => s.close(() => resolve()))
-  return port
-}
+import { freePort } from './scratch'
 
 const root = mkdtempSync(join(tmpdir(), 'downdip-signals-'))
 chmodSync(root, 0o755)
