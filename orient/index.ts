@@ -71,3 +71,5 @@ export type {
   StructureInputs,
   StoredStructure,
 } from './logged-structures'
+export { fitSinusoid, planeToImageSinusoid, referNorth, sinusoidDepthAt } from './sinusoid-fit'
+export type { ImageFrame, Sinusoid, SinusoidFit, TracePoint } from './sinusoid-fit'

@@ -126,6 +126,24 @@ export type PackStatus = (typeof packStatuses)[number]
 export const tokenPurposes = ['invite', 'reset'] as const
 
 /**
+ * Televiewer images: what an image shows (acoustic amplitude, acoustic travel time, optical true
+ * colour), where it came from (a raster strip or a LAS image array), and where it stands (a large
+ * upload is tiled by a background job).
+ */
+export const imageKinds = ['amplitude', 'traveltime', 'optical'] as const
+export type ImageKind = (typeof imageKinds)[number]
+export const imageSources = ['raster', 'las'] as const
+export type ImageSource = (typeof imageSources)[number]
+export const imageStatuses = ['processing', 'ready', 'failed'] as const
+export type ImageStatus = (typeof imageStatuses)[number]
+/** Image azimuth 0 (the left edge before the left-edge azimuth is added): north or the high side. */
+export const imageAzimuthReferences = ['north', 'highside'] as const
+export type ImageAzimuthReference = (typeof imageAzimuthReferences)[number]
+/** Which north a north-referenced image is oriented to. */
+export const imageNorthReferences = ['magnetic', 'true'] as const
+export type ImageNorthReference = (typeof imageNorthReferences)[number]
+
+/**
  * Set colours, one palette for the screen's nets and tables and the design pack's nets: Downdip's
  * own, mid-tone so they read on the light and the dark panel alike, distinct from the accent used
  * for contours. The n-th set of an interval (in the analysis order) takes setColour(n).
