@@ -1,6 +1,7 @@
 import { deflateSync, inflateSync } from 'node:zlib'
 import { and, asc, between, eq } from 'drizzle-orm'
-import { imageTiles, type Image } from '../../../schema/index'
+import { images, imageTiles, type Image } from '../../../schema/index'
+import { notFound } from '../http/errors'
 import type { Executor } from '../db/client'
 
 /** Samples of one tile: uint8 (8-bit rasters, RGB) or uint16 (16-bit rasters, LAS arrays). */
@@ -94,4 +95,14 @@ export async function readRows(
     }
   }
   return { width, rows, firstRow: fromRow, values }
+}
+
+/** The image of this hole, or 404: an image id from another hole is not found. */
+export async function findImage(db: Executor, holeId: number, imageId: number): Promise<Image> {
+  const [row] = await db
+    .select()
+    .from(images)
+    .where(and(eq(images.id, imageId), eq(images.holeId, holeId)))
+  if (!row) throw notFound('Image')
+  return row
 }
