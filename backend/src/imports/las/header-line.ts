@@ -21,8 +21,10 @@ export function splitHeaderLine(
   while (unitEnd < line.length && !isBlank(line.charCodeAt(unitEnd))) unitEnd++
   let rest = line.slice(unitEnd)
   let unit = line.slice(dot + 1, unitEnd)
-  // `DEPT.M: depth` — a colon right after the unit, with no blank before it
-  const colonInUnit = unit.lastIndexOf(':')
+  // The unit ends at the first blank after the dot (CWLS LAS 2.0, header line syntax), so `TIME.hh:mm  12:30 : time`
+  // keeps the unit hh:mm. Only when nothing after the unit holds a colon is a colon inside it the
+  // value's delimiter: `DEPT.M: depth`, written with no blank before the colon.
+  const colonInUnit = rest.indexOf(':') < 0 ? unit.lastIndexOf(':') : -1
   if (colonInUnit >= 0) {
     rest = unit.slice(colonInUnit) + rest
     unit = unit.slice(0, colonInUnit)

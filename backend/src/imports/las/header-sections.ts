@@ -59,17 +59,27 @@ export interface VersionInfo {
   delimiter: LasDelimiter
 }
 
-/** ~V: VERS (2.0 or 3.0 only), WRAP (YES/NO), DLM (LAS 3.0: SPACE, TAB or COMMA). */
+/** ~V: VERS (1.2, 2.0 or 3.0), WRAP (YES/NO), DLM (LAS 3.0: SPACE, TAB or COMMA). */
 export function readVersion(text: string, s: Section, problems: ProblemLog): VersionInfo {
   const items = readItems(text, s, false, problems)
   const find = (m: string) => items.find((i) => i.mnemonic.toUpperCase() === m)
   const vers = find('VERS')
   if (!vers) refuse(s.line, 'The ~V section has no VERS line (LAS 2.0 or 3.0).')
   const number = headerNumber(vers.value)
-  if (number !== 2 && number !== 3) {
-    refuse(vers.line, `VERS is "${vers.value.slice(0, 20)}": only LAS 2.0 and 3.0 files are read.`)
+  if (number !== 1.2 && number !== 2 && number !== 3) {
+    refuse(
+      vers.line,
+      `VERS is "${vers.value.slice(0, 20)}": only LAS 1.2, 2.0 and 3.0 files are read.`,
+    )
   }
-  const version: LasVersion = number === 3 ? '3.0' : '2.0'
+  const version: LasVersion = number === 3 ? '3.0' : number === 2 ? '2.0' : '1.2'
+  if (version === '1.2') {
+    problems.push({
+      line: vers.line,
+      message:
+        'LAS 1.2: read as LAS 2.0 (same sections and line syntax; ~W text items swapped back).',
+    })
+  }
   const wrapItem = find('WRAP')
   const wrapValue = wrapItem?.value.toUpperCase()
   if (wrapValue !== 'YES' && wrapValue !== 'NO') {

@@ -3,7 +3,7 @@ import { headerNumber } from './header-line'
 import { readItems, readOther, readVersion } from './header-sections'
 import { checkIndex } from './checks'
 import { scanSections, sectionKind, titleWord, type Section } from './sections'
-import { decodeLas } from './text'
+import { decodeLasText, uniformLineEnds } from './text'
 import { metresPerUnit } from './units'
 import {
   LasReadError,
@@ -22,10 +22,20 @@ import {
  * warnings in `problems` for what it read around.
  */
 export function readLas(input: Uint8Array | string): LasFile {
-  let text = typeof input === 'string' ? input : decodeLas(input)
+  const decoded =
+    typeof input === 'string'
+      ? { text: uniformLineEnds(input), encoding: 'utf-8' as const }
+      : decodeLasText(input)
+  let text = decoded.text
   // a byte-order mark is not content (TextDecoder drops it from bytes; strings may keep it)
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1)
   const problems = new ProblemLog()
+  if (decoded.encoding !== 'utf-8') {
+    problems.push({
+      line: 1,
+      message: `Read as ${decoded.encoding === 'windows-1252' ? 'Windows-1252 (not valid UTF-8)' : decoded.encoding.toUpperCase()} text.`,
+    })
+  }
   const sections = scanSections(text)
   const head = sections[0]
   if (sectionKind(head.title, false) !== 'V') {
@@ -65,6 +75,7 @@ export function readLas(input: Uint8Array | string): LasFile {
     refuse(sections.at(-1)!.line, 'No ~C (curve) section: the columns are unknown.')
   if (!data) refuse(lineCount(text), 'No ~A (data) section: the file ends without samples.')
 
+  if (version === '1.2') swapWellText(wellItems)
   const well: Record<string, HeaderItem> = {}
   for (const item of wellItems) {
     const key = item.mnemonic.toUpperCase()
@@ -159,4 +170,39 @@ function lineCount(text: string): number {
 /** push(...items) overflows the stack past ~100,000 items; a junk header can have millions. */
 function appendAll<T>(target: T[], items: T[]) {
   for (const item of items) target.push(item)
+}
+
+/** The labels LAS 1.2 writes before the colon of its ~W text items [from memory of its examples]. */
+const WELL_LABELS = new Set([
+  'COMPANY',
+  'WELL',
+  'FIELD',
+  'LOCATION',
+  'PROVINCE',
+  'COUNTY',
+  'STATE',
+  'COUNTRY',
+  'SERVICE COMPANY',
+  'DATE',
+  'LOG DATE',
+  'UNIQUE WELL ID',
+  'API NUMBER',
+  'LICENCE NUMBER',
+  'LICENSE NUMBER',
+])
+
+/**
+ * LAS 1.2 writes the ~W text items as `COMP.   COMPANY:  ANY OIL COMPANY INC.` — the item's label
+ * before the colon and its value after it, where 2.0 has `COMP.  ANY OIL COMPANY INC. : COMPANY`
+ * [from memory of the CWLS LAS 1.2 specification's example]; STRT, STOP, STEP and NULL are the same
+ * in both. An item is swapped back only when the part before the colon is one of those labels, so
+ * a 1.2 file written the 2.0 way is read as written.
+ */
+function swapWellText(items: HeaderItem[]): void {
+  for (const item of items) {
+    if (item.description === '' || !WELL_LABELS.has(item.value.trim().toUpperCase())) continue
+    const { value, description } = item
+    item.value = description
+    item.description = value
+  }
 }

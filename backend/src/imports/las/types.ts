@@ -23,7 +23,7 @@ export interface LasProblem {
 }
 
 export type LasDelimiter = 'SPACE' | 'TAB' | 'COMMA'
-export type LasVersion = '2.0' | '3.0'
+export type LasVersion = '1.2' | '2.0' | '3.0'
 
 /** A section the reader does not import (LAS 3.0 ~Inclinometry_*, ~Core_*, user-defined…). */
 export interface LasSectionNote {
