@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest'
 import { readFileSync } from 'node:fs'
 import { fileURLToPath } from 'node:url'
-import { readLas, type LasFile } from '../../backend/src/imports/las/index'
+import {
+  curvesToStore,
+  deviationSurvey,
+  lasSummary,
+  readLas,
+  type LasFile,
+} from '../../backend/src/imports/las/index'
 import { splitHeaderLine } from '../../backend/src/imports/las/header-line'
 import { utf16Order } from '../../backend/src/imports/las/text'
 
@@ -101,5 +107,75 @@ describe('header lines: the unit ends at the first blank after the first dot (CW
       unit: '',
       value: '2024-03-15 12:30:00',
     })
+  })
+})
+
+describe('readLas() LAS 3.0 data sets, text columns and quoted values (CWLS LAS 3.0)', () => {
+  it('a {S} column is read as text; a quoted value keeps the delimiter and doubled quotes', () => {
+    const las = read('gsq-bh05-las3-sets.las')
+    const lith = las.curves.find((c) => c.mnemonic === 'LITH')!
+    expect(lith.text).toEqual(['MDST, grey', 'LMST', 'MDST, dark grey, "fissile"'])
+    expect(values(las, 'GR')).toEqual([41.5, null, 44.8])
+  })
+
+  it('every set is read: cores (two data sections, a date column), inclinometry, a second log', () => {
+    const las = read('gsq-bh05-las3-sets.las')
+    expect(las.dataSets.map((d) => [d.name, d.kind, d.line, d.sampleCount])).toEqual([
+      ['CORE [1]', 'other', 19, 1],
+      ['CORE [2]', 'other', 19, 1],
+      ['INCLINOMETRY', 'inclinometry', 27, 3],
+      ['LOG (2)', 'log', 35, 2],
+    ])
+    expect(las.dataSets[1].curves[2].text).toEqual(['05/03/2025'])
+    expect(Array.from(las.dataSets[2].curves[1].values)).toEqual([190, 190.5, 191])
+    expect(Array.from(las.dataSets[3].curves[1].values)).toEqual([61.2, 60.8])
+    expect(las.otherSections).toEqual([])
+  })
+
+  it('the inclinometry set is the survey source when the log has no deviation channels', () => {
+    const las = read('gsq-bh05-las3-sets.las')
+    expect(lasSummary(las).deviation).toEqual({ azimuthCurve: 'AZIM', inclinationCurve: 'INCL' })
+    const survey = deviationSurvey(las, 30, 0)!
+    expect(survey.stations.map((s) => [s.depth, s.azimuth, s.plunge])).toEqual([
+      [0, 190, 60],
+      [30, 190.5, 59.8],
+      [60, 191, 59.4],
+    ])
+  })
+
+  it('text columns are kept in the preview, never stored as curves', () => {
+    const las = read('gsq-bh05-las3-sets.las')
+    const summary = lasSummary(las)
+    expect(summary.curves.find((c) => c.mnemonic === 'LITH')).toMatchObject({ text: true })
+    const choice = curvesToStore(las, ['GR', 'LITH'], 0)
+    expect(choice.curves.map((c) => c.mnemonic)).toEqual(['GR'])
+    expect(choice.unknown).toEqual([
+      { position: 1, message: 'A text column: kept in the file, not stored as a curve.' },
+    ])
+  })
+})
+
+describe('readLas() decimal commas: read where the comma is not the delimiter, refused where ambiguous', () => {
+  it('DLM SPACE with 70,5 and -999,25 in ~W and ~A → 70.5, NULL honoured, with a notice', () => {
+    const las = read('gsq-bh02-decimal-comma.las')
+    expect(las).toMatchObject({ start: 70, stop: 71, step: 0.5, nullValue: -999.25 })
+    expect(values(las, 'DEPT')).toEqual([70, 70.5, 71])
+    expect(values(las, 'DEN')).toEqual([2.65, null, 2.71])
+    expect(las.problems.map((p) => p.message)).toContain(
+      'Decimal commas read as decimal marks (12,5 = 12.5).',
+    )
+  })
+
+  it('decimal commas and decimal points in one file → refused at the line that disagrees', () => {
+    expect(() => read('broken-decimal-mixed.las')).toThrow(
+      /^Line 17: Decimal commas \(line 15\) and decimal points \(line 17\)/,
+    )
+  })
+
+  it('DLM COMMA: a comma is the delimiter, so 2,65 is two values (a column-count refusal)', () => {
+    const text = readFileSync(dir + 'gsq-bh02-decimal-comma.las', 'utf8')
+      .replace('DLM .   SPACE', 'DLM .   COMMA')
+      .replace('70,0 2,65', '70.0,2.65,1')
+    expect(() => readLas(text)).toThrow(/Line 15: This line has 3 values/)
   })
 })

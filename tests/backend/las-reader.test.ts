@@ -94,17 +94,18 @@ describe('readLas() valid files', () => {
     expect(las.problems).toEqual([])
   })
 
-  it('readLas() LAS 3.0 comma-delimited: ~Log_* sections, {format} cut, ~Inclinometry_* noted', () => {
+  it('readLas() LAS 3.0 comma-delimited: ~Log_* sections, {format} cut, ~Inclinometry_* read', () => {
     const las = readLas(lasBytes('gsq-bh06-las3-comma.las'))
     expect(las).toMatchObject({ version: '3.0', delimiter: 'COMMA', start: 30, stop: 31.5 })
     expect(las.well.TIME).toMatchObject({ value: '09:45', format: 'hh:mm' })
     expect(las.well.DATE).toMatchObject({ value: '15/03/2024', description: 'Log date' })
     expect(las.parameters[0]).toMatchObject({ mnemonic: 'BS', value: '96.0', format: 'F' })
     expect(values(las, 'DEN')).toEqual([2.66, null, 2.71, 2.69])
-    expect(las.otherSections.map((s) => [s.line, s.inclinometry])).toEqual([
-      [25, true],
-      [29, true],
+    expect(las.otherSections).toEqual([])
+    expect(las.dataSets.map((d) => [d.name, d.kind, d.line, d.sampleCount])).toEqual([
+      ['INCLINOMETRY', 'inclinometry', 25, 2],
     ])
+    expect(Array.from(las.dataSets[0].curves[2].values)).toEqual([30.0, 30.4])
   })
 
   it('readLas() LAS 3.0 tab-delimited, STEP 0 (irregular), decreasing depths', () => {

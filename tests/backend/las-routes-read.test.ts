@@ -100,14 +100,27 @@ describe('POST /api/projects/:projectId/holes/:ctx.holeId/logs/imports/:importId
 })
 
 describe('POST /api/projects/:projectId/holes/:ctx.holeId/logs (edge cases)', () => {
-  it('POST logs (LAS 3.0, comma) → ~Inclinometry_* noted among the problems', async () => {
+  it('POST logs (LAS 3.0, comma) → the ~Inclinometry_* set read and offered as a survey', async () => {
     const res = await ctx.logger.upload(logs(), lasBytes('gsq-bh06-las3-comma.las'), 'bh06.las')
     expect(res.status).toBe(201)
     expect(res.body.data.version).toBe('3.0')
     expect(res.body.data.problems).toEqual([
-      { line: 25, message: 'Section ~INCLINOMETRY_DEFINITION noted, not imported.' },
-      { line: 29, message: 'Section ~INCLINOMETRY_DATA noted, not imported.' },
+      {
+        line: 29,
+        message:
+          'Data set INCLINOMETRY: 2 rows of 3 columns read (a hole survey: offered as a survey import).',
+      },
     ])
+    expect(res.body.data.dataSets).toEqual([
+      {
+        name: 'INCLINOMETRY',
+        kind: 'inclinometry',
+        line: 25,
+        rows: 2,
+        columns: ['MD', 'AZIM', 'INCL'],
+      },
+    ])
+    expect(res.body.data.deviation).toEqual({ azimuthCurve: 'AZIM', inclinationCurve: 'INCL' })
   })
 
   it('POST logs without a file, or an empty one → 400 naming the field', async () => {

@@ -8,6 +8,9 @@ export interface LasCurveSummary {
   nullCount: number
   min: number | null
   max: number | null
+  /** A LAS 3.0 text column: previewed, kept in the file, never stored as a curve. */
+  text?: boolean
+  sample?: string[]
 }
 
 export interface LasPreview {
@@ -23,6 +26,14 @@ export interface LasPreview {
   problems: { line: number | null; message: string }[]
   wellNameMatchesHole: boolean
   deviation: unknown
+  /** LAS 3.0 data sets read besides the log (an inclinometry set is offered as a survey). */
+  dataSets: {
+    name: string
+    kind: 'log' | 'inclinometry' | 'other'
+    line: number
+    rows: number
+    columns: string[]
+  }[]
 }
 
 export interface StoredCurve {

@@ -32,7 +32,7 @@ export function useHoleLogs(projectId: () => string, holeId: () => string) {
     }
   }
 
-  /** Reads the file on the server; every curve starts chosen. */
+  /** Reads the file on the server; every numeric curve starts chosen (text columns stay in the file). */
   async function read(file: File) {
     busy.value = true
     error.value = null
@@ -40,7 +40,7 @@ export function useHoleLogs(projectId: () => string, holeId: () => string) {
     preview.value = null
     try {
       preview.value = await uploadLas(projectId(), holeId(), file)
-      chosen.value = preview.value.curves.map((c) => c.mnemonic)
+      chosen.value = preview.value.curves.filter((c) => !c.text).map((c) => c.mnemonic)
     } catch (err: unknown) {
       error.value = describeError(err, 'The file was not read.')
       problems.value = isApiError(err) ? err.details : []

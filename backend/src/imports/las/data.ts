@@ -11,10 +11,14 @@ export interface DataRequest {
   wrap: boolean
   delimiter: LasDelimiter
   nullValue: number | null
+  /** LAS 3.0 `{S}` (and date/time) columns: read as text, not numbers. Never the index. */
+  textColumns?: readonly boolean[]
 }
 
 export interface DataResult {
   columns: Float64Array[]
+  /** The text of each text column (others null), one entry per sample. */
+  texts: (string[] | null)[]
   rows: number
   /** Refusals; when not empty the file must be refused. */
   errors: { line: number; message: string }[]
@@ -30,7 +34,10 @@ const MAX_ERRORS = 20
 export const MAX_INDEX_DEPTH = 100_000
 
 /**
- * Reads ~A / ~Log_Data: numbers only (CWLS LAS 2.0), NULL → NaN. Unwrapped: one
+ * Reads ~A / ~Log_Data: numbers (CWLS LAS 2.0), NULL → NaN, and LAS 3.0 text columns as text.
+ * Decimal commas (`12,5`) are read where a comma cannot be the delimiter (DLM SPACE or TAB, or a
+ * quoted field), with a notice; a file that mixes decimal points and decimal commas is ambiguous
+ * and refused at the first line that disagrees. Unwrapped: one
  * sample per line with one value per curve. Wrapped: the depth alone on a line, the other values
  * on the lines after it. Depths must be non-NULL and strictly increasing or decreasing. One pass.
  */
@@ -42,6 +49,12 @@ export function readData(req: DataRequest): DataResult {
     i = text.indexOf('\n', i + 1)
   }
   const columns = Array.from({ length: n }, () => new Float64Array(capacity))
+  const isText = Array.from({ length: n }, (_, c) => c > 0 && req.textColumns?.[c] === true)
+  const texts: (string[] | null)[] = isText.map((t) => (t ? [] : null))
+  const rowText: string[] = new Array<string>(n).fill('')
+  const commaDecimals = req.delimiter !== 'COMMA'
+  let firstComma = 0
+  let firstPoint = 0
   const row = new Float64Array(n)
   const values = new Float64Array(n)
   const errors: DataResult['errors'] = []
@@ -71,6 +84,7 @@ export function readData(req: DataRequest): DataResult {
         return fail(line, `Depth ${depth} does not continue the run of depths before it.`)
     }
     for (let c = 0; c < n; c++) columns[c][rows] = row[c]
+    for (let c = 1; c < n; c++) if (isText[c]) texts[c]!.push(rowText[c])
     rows++
   }
 
@@ -85,16 +99,38 @@ export function readData(req: DataRequest): DataResult {
     const count = tokens.length / 2
     const parsed = Math.min(count, n)
     let bad = -1
+    // the column each token fills: wrapped lines continue the sample being filled
+    const column0 = req.wrap && filled > 0 ? filled : 0
+    let mixed = ''
     for (let t = 0; t < parsed; t++) {
       const a = tokens[2 * t]
       const b = tokens[2 * t + 1]
+      const column = column0 + t
+      if (column < n && isText[column]) {
+        rowText[column] = text.slice(a, b).replaceAll('""', '"')
+        values[t] = NaN
+        continue
+      }
       // an empty field (TAB/COMMA) is absent; anything else must be a number
-      const v = a < b ? parseDecimal(text, a, b) : NaN
+      let v = a < b ? parseDecimal(text, a, b) : NaN
+      if (a < b && Number.isNaN(v) && commaDecimals) {
+        v = parseCommaDecimal(text, a, b)
+        if (!Number.isNaN(v)) firstComma ||= cursor.number
+      } else if (!Number.isNaN(v) && firstPoint === 0 && hasPoint(text, a, b)) {
+        firstPoint = cursor.number
+      }
       if (a < b && Number.isNaN(v)) {
         bad = t
         break
       }
+      if (firstComma > 0 && firstPoint > 0 && mixed === '') {
+        mixed = `Decimal commas (line ${firstComma}) and decimal points (line ${firstPoint}) in one file: which is meant is ambiguous.`
+      }
       values[t] = v === nullValue ? NaN : v
+    }
+    if (mixed !== '') {
+      fail(cursor.number, mixed)
+      break
     }
     if (bad >= 0) {
       const a = tokens[2 * bad]
@@ -147,7 +183,32 @@ export function readData(req: DataRequest): DataResult {
     emptyFields > 0
       ? [{ line: null, message: `${emptyFields} empty data fields read as NULL.` }]
       : []
+  if (firstComma > 0)
+    warnings.push({
+      line: firstComma,
+      message: 'Decimal commas read as decimal marks (12,5 = 12.5).',
+    })
   // wrapped files over-reserve (several lines per sample): copy rather than pin the spare room
   const trim = (c: Float64Array) => (rows * 2 < capacity ? c.slice(0, rows) : c.subarray(0, rows))
-  return { columns: columns.map(trim), rows, errors, warnings }
+  return { columns: columns.map(trim), texts, rows, errors, warnings }
+}
+
+/** `12,5` or `-0,25` (one comma, digits on both sides, no point or exponent) → 12.5; else NaN. */
+function parseCommaDecimal(text: string, a: number, b: number): number {
+  const comma = text.indexOf(',', a)
+  if (comma < 0 || comma >= b - 1) return NaN
+  let i = a
+  const sign = text.charCodeAt(i)
+  if (sign === 45 || sign === 43) i++
+  if (i === comma) return NaN
+  for (let k = i; k < b; k++) {
+    const c = text.charCodeAt(k)
+    if (k !== comma && !(c >= 48 && c <= 57)) return NaN
+  }
+  return Number(`${text.slice(a, comma)}.${text.slice(comma + 1, b)}`)
+}
+
+function hasPoint(text: string, a: number, b: number): boolean {
+  const p = text.indexOf('.', a)
+  return p >= 0 && p < b
 }

@@ -1,6 +1,6 @@
-import { detectDeviation, stationsFromDeviation, type DeviationChannels } from './deviation'
+import { stationsFromDeviation, type DeviationChannels } from './deviation'
 import type { DeviationStation } from './deviation'
-import { depthsInMetres } from './summary'
+import { depthsInMetres, surveySource } from './summary'
 import type { LasFile } from './types'
 
 export interface DeviationSurvey extends DeviationChannels {
@@ -9,18 +9,22 @@ export interface DeviationSurvey extends DeviationChannels {
   stations: DeviationStation[]
 }
 
-/** Survey stations every `interval` metres from a file's deviation channels, or null without them. */
+/**
+ * Survey stations every `interval` metres from a file's deviation channels — the log's own, or a
+ * LAS 3.0 inclinometry set's — or null without them.
+ */
 export function deviationSurvey(
   file: LasFile,
   interval: number,
   depthShift: number,
 ): DeviationSurvey | null {
-  const channels = detectDeviation(file.curves, [])
-  if (!channels) return null
+  const source = surveySource(file)
+  if (!source) return null
+  const { channels } = source
   const values = (m: string) =>
-    file.curves.find((c) => c.mnemonic === m)?.values ?? new Float64Array()
+    source.file.curves.find((c) => c.mnemonic === m)?.values ?? new Float64Array()
   const stations = stationsFromDeviation(
-    depthsInMetres(file, depthShift),
+    depthsInMetres(source.file, depthShift),
     values(channels.azimuthCurve),
     values(channels.inclinationCurve),
     interval,

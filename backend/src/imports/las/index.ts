@@ -1,8 +1,14 @@
 /** The LAS reader: CWLS LAS 2.0 and 3.0 log files → typed curves, summaries and stored rows. */
 export { readLas } from './read-las'
 export { LasReadError } from './types'
-export type { HeaderItem, LasCurve, LasFile, LasProblem, LasSectionNote } from './types'
-export { depthsInMetres, lasSummary, type CurveSummary, type LasSummary } from './summary'
+export type { HeaderItem, LasCurve, LasDataSet, LasFile, LasProblem, LasSectionNote } from './types'
+export {
+  depthsInMetres,
+  lasSummary,
+  surveySource,
+  type CurveSummary,
+  type LasSummary,
+} from './summary'
 export {
   detectDeviation,
   stationsFromDeviation,

@@ -78,7 +78,9 @@ export function curvesToStore(
   wanted: string[] | undefined,
   depthShift: number,
 ): CurveChoice {
-  const [index, ...available] = file.curves
+  const [index, ...all] = file.curves
+  // text columns (LAS 3.0 {S}) stay in the kept file and the preview; only numbers are curves
+  const available = all.filter((c) => !c.text)
   const names = wanted ?? available.map((c) => c.mnemonic)
   const unknown = names.flatMap((m, position) =>
     available.some((c) => c.mnemonic === m)
@@ -87,7 +89,11 @@ export function curvesToStore(
           {
             position,
             message:
-              m === index.mnemonic ? 'That is the depth index.' : 'No such curve in the file.',
+              m === index.mnemonic
+                ? 'That is the depth index.'
+                : all.some((c) => c.mnemonic === m)
+                  ? 'A text column: kept in the file, not stored as a curve.'
+                  : 'No such curve in the file.',
           },
         ],
   )

@@ -1,5 +1,5 @@
 import { detectDeviation, type DeviationChannels } from './deviation'
-import type { LasCurve, LasFile, LasProblem, LasVersion } from './types'
+import type { LasCurve, LasDataSet, LasFile, LasProblem, LasVersion } from './types'
 
 /** Stored depths are rounded to the micrometre, so 10 ft reads 3.048 m and not 3.0480000000000005. */
 const roundDepth = (m: number) => Math.round(m * 1e6) / 1e6
@@ -20,9 +20,27 @@ export interface CurveSummary {
   nullCount: number
   min: number | null
   max: number | null
+  /** A LAS 3.0 text column: shown and kept in the file, not stored as a curve. */
+  text?: boolean
+  /** Its first values, for the preview (text columns only). */
+  sample?: string[]
 }
 
 export function curveSummary(curve: LasCurve): CurveSummary {
+  if (curve.text) {
+    const { mnemonic, unit, description } = curve
+    const blank = curve.text.filter((t) => t.trim() === '').length
+    return {
+      mnemonic,
+      unit,
+      description,
+      nullCount: blank,
+      min: null,
+      max: null,
+      text: true,
+      sample: curve.text.slice(0, 5),
+    }
+  }
   let nullCount = 0
   let min = Infinity
   let max = -Infinity
@@ -68,12 +86,49 @@ export interface LasSummary {
   sampleCount: number
   problems: LasProblem[]
   deviation: DeviationChannels | null
+  /** LAS 3.0 data sets read besides the log. */
+  dataSets: {
+    name: string
+    kind: LasDataSet['kind']
+    line: number
+    rows: number
+    columns: string[]
+  }[]
+}
+
+/**
+ * The file whose curves carry the hole survey: the log itself when it has azimuth and inclination
+ * channels, else a LAS 3.0 inclinometry set (its own depth index and unit), else null.
+ */
+export function surveySource(
+  file: LasFile,
+  problems: LasProblem[] = [],
+): { file: LasFile; channels: DeviationChannels; set: string | null } | null {
+  const own = detectDeviation(file.curves, problems)
+  if (own) return { file, channels: own, set: null }
+  for (const set of file.dataSets) {
+    if (set.kind !== 'inclinometry' || set.metresPerDepthUnit === null) continue
+    const channels = detectDeviation(set.curves, problems)
+    if (channels)
+      return {
+        file: {
+          ...file,
+          curves: set.curves,
+          metresPerDepthUnit: set.metresPerDepthUnit,
+          depthUnit: set.depthUnit,
+          sampleCount: set.sampleCount,
+        },
+        channels,
+        set: set.name,
+      }
+  }
+  return null
 }
 
 /** What the preview shows about a file that was read. */
 export function lasSummary(file: LasFile): LasSummary {
   const problems = [...file.problems]
-  const deviation = detectDeviation(file.curves, problems)
+  const deviation = surveySource(file, problems)?.channels ?? null
   const depths = depthsInMetres(file)
   const first = depths[0]
   const last = depths[depths.length - 1]
@@ -105,5 +160,12 @@ export function lasSummary(file: LasFile): LasSummary {
     sampleCount: file.sampleCount,
     problems,
     deviation,
+    dataSets: file.dataSets.map((d) => ({
+      name: d.name,
+      kind: d.kind,
+      line: d.line,
+      rows: d.sampleCount,
+      columns: d.curves.map((c) => c.mnemonic),
+    })),
   }
 }

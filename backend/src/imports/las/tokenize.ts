@@ -4,7 +4,9 @@ import type { LasDelimiter } from './types'
 /**
  * Pushes [start, end) pairs of the fields in `text[from, to)`. SPACE: runs of blanks separate;
  * TAB / COMMA (LAS 3.0 DLM): each delimiter separates, blanks around a field are dropped, and an
- * empty field is kept (read as NULL). Returns the number of empty fields.
+ * empty field is kept (read as NULL). A field in double quotes runs to the closing quote, so a
+ * delimiter inside it ("MDST, grey") is text (LAS 3.0: quoted strings may hold the delimiter); the
+ * pair excludes the quotes. Returns the number of empty fields.
  */
 export function tokenize(
   text: string,
@@ -18,6 +20,12 @@ export function tokenize(
     while (i < to) {
       while (i < to && isBlank(text.charCodeAt(i))) i++
       if (i >= to) break
+      if (text.charCodeAt(i) === QUOTE) {
+        const close = closingQuote(text, i + 1, to)
+        out.push(i + 1, close)
+        i = close + 1
+        continue
+      }
       const a = i
       while (i < to && !isBlank(text.charCodeAt(i))) i++
       out.push(a, i)
@@ -26,18 +34,47 @@ export function tokenize(
   }
   const sep = dlm === 'TAB' ? 9 : 44
   let empty = 0
-  let a = from
-  for (let i = from; i <= to; i++) {
-    if (i < to && text.charCodeAt(i) !== sep) continue
-    let s = a
-    let e = i
-    while (s < e && isBlank(text.charCodeAt(s))) s++
-    while (e > s && isBlank(text.charCodeAt(e - 1))) e--
+  let i = from
+  for (;;) {
+    while (i < to && text.charCodeAt(i) !== sep && isBlank(text.charCodeAt(i))) i++
+    let s: number
+    let e: number
+    if (i < to && text.charCodeAt(i) === QUOTE) {
+      s = i + 1
+      e = closingQuote(text, s, to)
+      i = e + 1
+      while (i < to && text.charCodeAt(i) !== sep) i++
+    } else {
+      s = i
+      while (i < to && text.charCodeAt(i) !== sep) i++
+      e = i
+      while (e > s && isBlank(text.charCodeAt(e - 1))) e--
+    }
     if (s === e) empty++
     out.push(s, e)
-    a = i + 1
+    if (i >= to) break
+    i++ // past the delimiter
   }
   return empty
+}
+
+const QUOTE = 34
+
+/**
+ * Offset of the quote closing a field opened just before `from` (a doubled quote `""` inside is a
+ * quote character, as in CSV — RFC 4180 §2.7), or `to` when it is never closed.
+ */
+function closingQuote(text: string, from: number, to: number): number {
+  let i = from
+  for (;;) {
+    const q = text.indexOf('"', i)
+    if (q < 0 || q >= to) return to
+    if (q + 1 < to && text.charCodeAt(q + 1) === QUOTE) {
+      i = q + 2
+      continue
+    }
+    return q
+  }
 }
 
 const isBlank = (c: number) => c === 32 || c === 9

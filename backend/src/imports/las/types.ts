@@ -12,8 +12,25 @@ export interface HeaderItem {
 
 /** A curve from ~C / ~Log_Definition with its samples; `value` holds the API code if any. */
 export interface LasCurve extends HeaderItem {
-  /** Samples in file order; NaN where the file holds the NULL value. */
+  /** Samples in file order; NaN where the file holds the NULL value (and for text columns). */
   values: Float64Array
+  /** A LAS 3.0 text column (`{S}`, dates): the values as written, one per sample. */
+  text?: string[]
+}
+
+/** A LAS 3.0 data set beyond the log: a second log, a hole survey (inclinometry), cores, tops… */
+export interface LasDataSet {
+  /** The set's name from its definition (LOG (2), INCLINOMETRY, CORE [1]…). */
+  name: string
+  kind: 'log' | 'inclinometry' | 'other'
+  /** Line of its definition section. */
+  line: number
+  /** Index column first, as defined. */
+  curves: LasCurve[]
+  sampleCount: number
+  depthUnit: string
+  /** Null when the index is not a depth (a test number, a date). */
+  metresPerDepthUnit: number | null
 }
 
 /** A warning (the file is read) or, inside LasReadError, a reason the file is refused. */
@@ -52,6 +69,8 @@ export interface LasFile {
   depthUnit: string
   metresPerDepthUnit: number
   sampleCount: number
+  /** LAS 3.0 data sets read besides the log (none in 1.2/2.0 files). */
+  dataSets: LasDataSet[]
   otherSections: LasSectionNote[]
   problems: LasProblem[]
 }
