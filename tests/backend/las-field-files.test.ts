@@ -179,3 +179,29 @@ describe('readLas() decimal commas: read where the comma is not the delimiter, r
     expect(() => readLas(text)).toThrow(/Line 15: This line has 3 values/)
   })
 })
+
+describe('readLas() stays linear on hostile quoting and never refuses a file for a broken side set', () => {
+  it('a 2 MB run of quotes and delimiters in one data line is refused by line in under a second', () => {
+    const text = readFileSync(dir + 'gsq-bh05-las3-sets.las', 'utf8').replace(
+      '60.5,-999.25,LMST',
+      `60.5,${'","'.repeat(700_000)}`,
+    )
+    const t0 = performance.now()
+    expect(() => readLas(text)).toThrow(/^Line 17: /)
+    expect(performance.now() - t0).toBeLessThan(1000)
+  })
+
+  it('a side set with text in a number column is noted with its line; the log is still read', () => {
+    const text = readFileSync(dir + 'gsq-bh05-las3-sets.las', 'utf8').replace(
+      '30.0,190.5,30.2',
+      '30.0,n/a,30.2',
+    )
+    const las = readLas(text)
+    expect(las.sampleCount).toBe(3)
+    expect(las.dataSets.map((d) => d.name)).not.toContain('INCLINOMETRY')
+    expect(las.problems).toContainEqual({
+      line: 33,
+      message: 'Data set INCLINOMETRY not read: Text in the data: "n/a" is not a number.',
+    })
+  })
+})
