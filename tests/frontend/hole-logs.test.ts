@@ -24,6 +24,7 @@ const preview: LasPreview = {
   problems: [],
   wellNameMatchesHole: true,
   deviation: null,
+  dataSets: [],
 }
 const stored: StoredCurve = {
   id: 31,
