@@ -73,3 +73,7 @@ export type {
 } from './logged-structures'
 export { fitSinusoid, planeToImageSinusoid, referNorth, sinusoidDepthAt } from './sinusoid-fit'
 export type { ImageFrame, Sinusoid, SinusoidFit, TracePoint } from './sinusoid-fit'
+export { DEFAULT_MIN_SCORE, detectSinusoids } from './sinusoid-detect'
+export type { DetectOptions, ImageRows, SinusoidCandidate } from './sinusoid-detect'
+export { renderWallImage, renderWallRows } from './image-synth'
+export type { PlantedTrace, SynthOptions } from './image-synth'
