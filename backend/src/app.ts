@@ -105,7 +105,15 @@ export function createApp({ db, pool, env, logger, jobs, mail }: AppDeps) {
   app.use(
     '/api/projects/:projectId',
     loadProject(db),
-    projectRouter({ db, pool, jobs, mail, logger, uploadLimitMb: env.UPLOAD_LIMIT_MB }),
+    projectRouter({
+      db,
+      pool,
+      jobs,
+      mail,
+      logger,
+      uploadLimitMb: env.UPLOAD_LIMIT_MB,
+      imageUploadLimitMb: env.IMAGE_UPLOAD_LIMIT_MB,
+    }),
   )
   app.use('/api', notFoundHandler)
   // the built app, with history-mode fallback

@@ -46,6 +46,8 @@ const EnvSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   LOGIN_ATTEMPTS_PER_WINDOW: z.coerce.number().int().positive().default(10),
   UPLOAD_LIMIT_MB: z.coerce.number().positive().default(50),
+  /** Televiewer image uploads (a strip or a LAS file of image arrays) are larger. */
+  IMAGE_UPLOAD_LIMIT_MB: z.coerce.number().positive().default(256),
   /** Outgoing mail; the default is the local fake SMTP server that start.sh and dev.sh run. */
   SMTP_URL: z.string().url().default('smtp://127.0.0.1:2525'),
   MAIL_FROM: z.string().min(3).default('Downdip <no-reply@downdip.test>'),

@@ -3,7 +3,7 @@ import { createDb } from './db/client'
 import { loadEnv } from './env'
 import { createLogger } from './logger'
 import { startJobQueue } from './jobs/queue'
-import { importCommitJob, packBuildJob } from './jobs/handlers'
+import { imageTilingJob, importCommitJob, packBuildJob } from './jobs/handlers'
 import { createMailer } from './mail/transport'
 import { startSweeper } from './services/leases'
 
@@ -19,6 +19,7 @@ const jobs = await startJobQueue(
   {
     'import-commit': importCommitJob(db, pool, mail, logger),
     'pack-build': packBuildJob(db, logger),
+    'image-tiling': imageTilingJob(db, logger),
   },
   logger,
 )

@@ -4,6 +4,10 @@ import { readFileSync } from 'node:fs'
 import request from 'supertest'
 import {
   coreRuns,
+  imageFiles,
+  imagePicks,
+  images,
+  imageTiles,
   logCurves,
   domains,
   holes,
@@ -26,6 +30,7 @@ import {
   type Client,
   type Fixture,
 } from './fixture'
+import { encodeTile } from '../../backend/src/services/image-rows'
 
 type Need =
   'public' | 'signed-in' | 'admin' | 'project-admin' | 'viewer' | 'logger' | 'engineer' | 'lead'
@@ -186,6 +191,73 @@ const freshCurve = async (fx: Fixture) => {
     .returning()
   return c
 }
+/** A ready 8-bit image of 4 rows × 8 samples (one tile, one file chunk) far down the hole. */
+const freshImage = async (fx: Fixture) => {
+  const top = 3000 + unique()
+  const [img] = await fx.db
+    .insert(images)
+    .values({
+      holeId: fx.holeId,
+      kind: 'amplitude',
+      source: 'raster',
+      name: 'strip.png',
+      fileName: 'strip.png',
+      mediaType: 'image/png',
+      fileSize: 4,
+      sha256: `sha-${top}`,
+      topDepth: top,
+      bottomDepth: top + 0.02,
+      width: 8,
+      height: 4,
+      channels: 1,
+      sampleBits: 8,
+      azimuthReference: 'highside',
+      diameterMm: 96,
+      diameterSource: 'entered',
+      levels: 1,
+      status: 'ready',
+      progress: 100,
+    })
+    .returning()
+  await fx.db
+    .insert(imageTiles)
+    .values({ imageId: img.id, level: 0, tile: 0, rows: 4, bytes: encodeTile(new Uint8Array(32)) })
+  await fx.db.insert(imageFiles).values({ imageId: img.id, seq: 0, bytes: Buffer.from('png!') })
+  return img
+}
+const pointsOn = (top: number) =>
+  [0, 90, 180, 270].map((azimuth, k) => ({ depth: top + 0.005 + (k % 2) * 0.005, azimuth }))
+/** A pick on a fresh image: the structure row and its raw pick. */
+const freshImagePick = async (fx: Fixture) => {
+  const img = await freshImage(fx)
+  const [s] = await fx.db
+    .insert(structures)
+    .values({
+      holeId: fx.holeId,
+      depth: img.topDepth + 0.01,
+      type: 'joint',
+      source: 'image',
+      pickAmplitude: 10,
+      pickDiameter: 96,
+      pickTroughAzimuth: 0,
+      pickReference: 'highside',
+      pickAzimuthReference: 'highside',
+    })
+    .returning()
+  await fx.db.insert(imagePicks).values({
+    structureId: s.id,
+    imageId: img.id,
+    points: pointsOn(img.topDepth),
+    centreDepth: img.topDepth + 0.01,
+    heightMm: 10,
+    troughAzimuth: 0,
+    diameterMm: 96,
+    azimuthReference: 'highside',
+    rmsMm: 0,
+  })
+  return { img, s }
+}
+const IMG = (fx: Fixture, id: number) => `${H(fx)}/images/${id}`
 const I = (fx: Fixture, id: number) => `${H(fx)}/intervals/${id}`
 const station = () => ({ depth: 500 + unique(), azimuth: 12, plunge: 58, azimuthReference: 'true' })
 
@@ -737,6 +809,114 @@ const cases: RouteCase[] = [
       path: `${H(fx)}/logs/imports/${(await freshLas(fx, 'gsq-bh03-feet-deviation.las')).id}/survey-from-deviation`,
       body: {},
     }),
+  },
+  // televiewer images
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/images',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/images` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/images',
+    need: 'logger',
+    ok: 400,
+    prepare: async (fx) => ({ path: `${H(fx)}/images` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: IMG(fx, (await freshImage(fx)).id) }),
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId',
+    need: 'logger',
+    ok: 204,
+    prepare: async (fx) => ({ path: IMG(fx, (await freshImage(fx)).id) }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId/file',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${IMG(fx, (await freshImage(fx)).id)}/file` }),
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId/tiles/:level/:tile',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${IMG(fx, (await freshImage(fx)).id)}/tiles/0/0` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId/fit',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => {
+      const img = await freshImage(fx)
+      return { path: `${IMG(fx, img.id)}/fit`, body: { points: pointsOn(img.topDepth) } }
+    },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId/picks',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${IMG(fx, (await freshImage(fx)).id)}/picks` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId/picks',
+    need: 'logger',
+    ok: 201,
+    prepare: async (fx) => {
+      const img = await freshImage(fx)
+      return {
+        path: `${IMG(fx, img.id)}/picks`,
+        body: { points: pointsOn(img.topDepth), type: 'joint' },
+      }
+    },
+  },
+  {
+    method: 'patch',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId/picks/:structureId',
+    need: 'logger',
+    ok: 200,
+    prepare: async (fx) => {
+      const { img, s } = await freshImagePick(fx)
+      return {
+        path: `${IMG(fx, img.id)}/picks/${s.id}`,
+        body: { type: 'vein', version: s.version },
+      }
+    },
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId/picks/:structureId',
+    need: 'logger',
+    ok: 204,
+    prepare: async (fx) => {
+      const { img, s } = await freshImagePick(fx)
+      return { path: `${IMG(fx, img.id)}/picks/${s.id}?version=${s.version}` }
+    },
+  },
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/images/:imageId/suggestions',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => {
+      const img = await freshImage(fx)
+      return {
+        path: `${IMG(fx, img.id)}/suggestions?from=${img.topDepth}&to=${img.bottomDepth}`,
+      }
+    },
   },
   {
     method: 'get',

@@ -19,6 +19,7 @@ import { stationRow } from '../services/survey'
 import { declinationFor } from '../services/declination'
 import type { Db, Executor, Tx } from './client'
 import { demoLasFile, demoPicks } from './demo-logs'
+import { seedDemoImage } from './demo-images'
 import { commitLasImport, previewLasImport } from '../services/logs'
 import { DEMO_PASSWORD, demoHoles, demoProject, demoUsers, type DemoHole } from './demo-data'
 import { demoRandom } from './random'
@@ -75,6 +76,17 @@ export async function seedDemo(db: Db): Promise<void> {
     }
   })
   for (const name of demoLogHoles) await once(db, `demo:${name}:las`, () => seedLas(db, name))
+  // the televiewer image and its marker in one transaction: a crash leaves neither
+  for (const name of demoLogHoles) {
+    await db.transaction((tx) =>
+      once(tx, `demo:${name}:televiewer`, async () => {
+        const found = await demoHoleRow(tx, name)
+        if (!found) return
+        const [admin] = await tx.select().from(users).where(eq(users.email, demoUsers[0].email))
+        await seedDemoImage(tx, found.hole, admin?.id ?? null)
+      }),
+    )
+  }
 }
 
 /** Holes of the demo that were also logged with a televiewer and geophysical tools. */

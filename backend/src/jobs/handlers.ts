@@ -4,6 +4,7 @@ import { ApiError } from '../http/errors'
 import type { Logger } from '../logger'
 import type { Mailer } from '../mail/transport'
 import { commitImport } from '../services/import-commit'
+import { tileImage } from '../services/image-tiling'
 import { runPackBuild } from '../services/pack-build'
 import type { JobHandler } from './queue'
 
@@ -44,5 +45,17 @@ export function packBuildJob(db: Db, logger: Logger): JobHandler {
       logger.warn({ packId, err }, 'pack build failed')
       throw err
     }
+  }
+}
+
+/**
+ * Tiles a stored image. A refusal (a damaged body) is final — the image reads failed with the
+ * reason — and so is finding it taken or gone; anything else is thrown for pg-boss to retry.
+ */
+export function imageTilingJob(db: Db, logger: Logger): JobHandler {
+  return async (data) => {
+    const imageId = Number(data.imageId)
+    const outcome = await tileImage(db, imageId, String(data.attempt))
+    if (outcome !== 'ready') logger.warn({ imageId, outcome }, 'image not tiled')
   }
 }

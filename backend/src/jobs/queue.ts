@@ -7,7 +7,7 @@ export interface JobQueue {
   stop: () => Promise<void>
 }
 
-export const jobNames = ['import-commit', 'pack-build'] as const
+export const jobNames = ['import-commit', 'pack-build', 'image-tiling'] as const
 export type JobName = (typeof jobNames)[number]
 export type JobHandler = (data: Record<string, unknown>) => Promise<void>
 

@@ -13,4 +13,6 @@ export interface ProjectDeps {
   jobs?: JobQueue
   logger?: Logger
   uploadLimitMb: number
+  /** The cap on one image upload (IMAGE_UPLOAD_LIMIT_MB). */
+  imageUploadLimitMb: number
 }

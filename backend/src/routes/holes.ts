@@ -7,6 +7,8 @@ import type { ProjectDeps } from './deps'
 import { logsRouter } from './logs'
 import { runsRouter } from './runs'
 import { importsRouter } from './imports'
+import { imagePicksRouter } from './image-picks'
+import { imagesRouter } from './images'
 import { intervalsRouter } from './intervals'
 import { structuresRouter } from './structures'
 import { surveyRouter } from './survey'
@@ -62,6 +64,8 @@ export function holesRouter(deps: ProjectDeps): Router {
   router.use('/:holeId/imports', importsRouter(deps))
   router.use('/:holeId/intervals', intervalsRouter(deps))
   router.use('/:holeId/survey', surveyRouter(deps))
+  router.use('/:holeId/images', imagesRouter(deps))
+  router.use('/:holeId/images/:imageId', imagePicksRouter(deps))
 
   router.get('/:holeId', (_req, res) => {
     res.json({ data: holeLocals(res) })

@@ -20,7 +20,7 @@ import { recomputeStructures } from './structure-recompute'
 
 export { recomputeStructures } from './structure-recompute'
 
-type Actor = { id: number; role: ProjectRole }
+export type Actor = { id: number; role: ProjectRole }
 
 export const listStructures = (db: Executor, holeId: number) =>
   db
@@ -50,11 +50,13 @@ async function assertUnlocked(db: Executor, role: ProjectRole, holeId: number, d
   }
 }
 
-interface StructureChange {
+export interface StructureChange {
   /** Old and new depths: every interval they lie in is touched. */
   depths: number[]
   /** The depth the write asks for, checked against the hole's final depth. */
   sent?: number
+  /** Where the request gave that depth, for the 400 (`body.depth` unless said). */
+  sentPath?: string
   what: string
   reason: string
 }
@@ -65,15 +67,15 @@ interface StructureChange {
  * logger, and a checked interval changed by an engineer or lead goes back to draft. Returns the
  * hole as it is now.
  */
-async function guardStructureWrite(
+export async function guardStructureWrite(
   tx: Tx,
   actor: Actor,
   hole: Hole,
-  { depths, sent, what, reason }: StructureChange,
+  { depths, sent, sentPath = 'body.depth', what, reason }: StructureChange,
   demoted: Demoted[],
 ): Promise<Hole> {
   const current = await lockHole(tx, hole.id)
-  if (sent !== undefined) assertWithinHole(current, [{ path: 'body.depth', depth: sent }])
+  if (sent !== undefined) assertWithinHole(current, [{ path: sentPath, depth: sent }])
   await assertNotFrozen(tx, hole.id, { depths }, what)
   await assertUnlocked(tx, actor.role, hole.id, depths)
   demoted.push(
