@@ -16,6 +16,7 @@ import { requireCsrfToken } from './auth/csrf'
 import { loadProject, requireSignedIn } from './auth/guards'
 import { sessionLifetime } from './auth/session-lifetime'
 import { errorHandler, notFoundHandler } from './http/error-handler'
+import { agsRouter } from './routes/ags'
 import { authRouter, passwordResetRouter } from './routes/auth'
 import { healthRouter } from './routes/health'
 import { invitationsRouter } from './routes/invitations'
@@ -101,6 +102,7 @@ export function createApp({ db, pool, env, logger, jobs, mail }: AppDeps) {
   app.use('/api/users', usersRouter(db))
   app.use('/api/invitations', invitationsRouter(db, mail))
   app.use('/api/dev/mailbox', mailboxRouter(db, env))
+  app.use('/api/ags', requireSignedIn, agsRouter(db, env.UPLOAD_LIMIT_MB))
   app.use('/api/projects', requireSignedIn, projectsRouter(db))
   app.use(
     '/api/projects/:projectId',

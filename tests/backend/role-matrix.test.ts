@@ -986,6 +986,35 @@ const cases: RouteCase[] = [
       }
     },
   },
+  // AGS4 checking (any signed-in user) and the standard dictionaries (administrators load them)
+  {
+    method: 'post',
+    route: '/api/ags/validate',
+    need: 'signed-in',
+    ok: 400,
+    prepare: async () => ({ path: '/api/ags/validate' }),
+  },
+  {
+    method: 'get',
+    route: '/api/ags/dictionaries',
+    need: 'signed-in',
+    ok: 200,
+    prepare: async () => ({ path: '/api/ags/dictionaries' }),
+  },
+  {
+    method: 'post',
+    route: '/api/ags/dictionaries',
+    need: 'admin',
+    ok: 400,
+    prepare: async () => ({ path: '/api/ags/dictionaries' }),
+  },
+  {
+    method: 'delete',
+    route: '/api/ags/dictionaries/:edition',
+    need: 'admin',
+    ok: 404,
+    prepare: async () => ({ path: '/api/ags/dictionaries/4.0.3' }),
+  },
   {
     method: 'get',
     route: '/api/users',

@@ -1,7 +1,10 @@
-/** A rule broken somewhere in an AGS4 file, with the 1-based line it was found on. */
+import { splitRow } from './ags4-row'
+
+/** One finding: the AGS4 rule broken (as the rules number it), where, and what. */
 export interface AgsIssue {
   line: number
   rule: string
+  severity: 'error' | 'warning'
   message: string
 }
 
@@ -13,83 +16,137 @@ export interface ParsedRow {
 export interface ParsedGroup {
   name: string
   line: number
+  headingLine: number
+  unitLine: number
+  typeLine: number
   headings: string[]
   units: string[]
   types: string[]
   data: ParsedRow[]
 }
 
-const rowTags = ['GROUP', 'HEADING', 'UNIT', 'TYPE', 'DATA'] as const
-// Every field double-quoted, inner quotes doubled, fields separated by commas (AGS4 rules 4–6).
-const quotedRow = /^"(?:[^"]|"")*"(?:,"(?:[^"]|"")*")*$/
-const fieldPattern = /"((?:[^"]|"")*)"/g
+export type Report = (line: number, rule: string, message: string, warning?: boolean) => void
+
+export function issueSink(issues: AgsIssue[]): Report {
+  return (line, rule, message, warning = false) =>
+    issues.push({
+      line,
+      rule,
+      severity: warning ? 'warning' : 'error',
+      message: `Rule ${rule}: ${message}`,
+    })
+}
+
+const order = ['GROUP', 'HEADING', 'UNIT', 'TYPE', 'DATA'] as const
+type Descriptor = (typeof order)[number]
 
 /**
- * Reads AGS4 text into groups, reporting the syntax rules: ASCII only, CR LF line ends, quoted
- * fields, GROUP → HEADING → UNIT → TYPE → DATA order, equal field counts, blank lines between groups.
+ * Reads AGS4 text into groups and reports the rules of the file's form: ASCII only (Rule 1),
+ * CR LF line ends (2a), GROUP, HEADING, UNIT, TYPE and then DATA rows (2b), at least one DATA row
+ * (2), a data descriptor first on each line (3), field counts (4), quoting (5), commas (6).
  */
 export function parseAgs(text: string): { groups: ParsedGroup[]; issues: AgsIssue[] } {
   const issues: AgsIssue[] = []
+  const report = issueSink(issues)
   const groups: ParsedGroup[] = []
-  const issue = (line: number, rule: string, message: string) =>
-    issues.push({ line, rule, message })
+  // A byte-order mark is no ASCII character; said once, then read past so the rows still parse.
+  if (text.startsWith('\ufeff')) {
+    report(1, '1', 'the file starts with a byte-order mark (U+FEFF)')
+    text = text.slice(1)
+  }
   const lines = text.split('\n')
-  if (lines[lines.length - 1] === '') lines.pop()
-  else issue(lines.length, 'line-end', 'the last line must end with CR LF')
+  const endsWithNewline = lines[lines.length - 1] === ''
+  if (endsWithNewline) lines.pop()
+  else if (text !== '') report(lines.length, '2a', 'the last line does not end with CR LF')
   let group: ParsedGroup | undefined
-  let last = -1
-  let previousBlank = true
-  lines.forEach((raw, i) => {
-    const n = i + 1
-    const isLast = i === lines.length - 1 && !text.endsWith('\n')
-    if (!isLast && !raw.endsWith('\r')) issue(n, 'line-end', 'line ends with LF only (needs CR LF)')
+  let last: Descriptor | undefined
+  let blankBefore = true
+  const seen = new Map<string, number>()
+  lines.forEach((raw, index) => {
+    const n = index + 1
     const content = raw.endsWith('\r') ? raw.slice(0, -1) : raw
-    if (content.includes('\r')) issue(n, 'line-end', 'CR inside a line')
-    if (/[^\x20-\x7e\r]/.test(content)) issue(n, 'ascii', 'non-ASCII or control character')
+    if (!raw.endsWith('\r') && (index < lines.length - 1 || endsWithNewline))
+      report(n, '2a', 'the line ends with LF alone, not CR LF')
+    if (content.includes('\r')) report(n, '2a', 'a carriage return inside the line')
+    const wide = /[\u0080-\uffff]/.exec(content)
+    if (wide)
+      report(n, '1', `non-ASCII character ${JSON.stringify(wide[0])} at column ${wide.index + 1}`)
     if (content.trim() === '') {
       group = undefined
-      previousBlank = true
+      last = undefined
+      blankBefore = true
       return
     }
-    if (!quotedRow.test(content)) {
-      issue(n, 'quoting', 'every field must be double-quoted, inner quotes doubled')
-      previousBlank = false
+    const { fields, fault } = splitRow(content)
+    if (fault) report(n, fault.rule, fault.message)
+    const tag = fields[0] as Descriptor
+    if (!order.includes(tag)) {
+      report(
+        n,
+        '3',
+        `the line starts with ${JSON.stringify(fields[0])}, not GROUP, HEADING, UNIT, TYPE or DATA`,
+      )
+      blankBefore = false
       return
     }
-    const fields = [...content.matchAll(fieldPattern)].map((m) => m[1].replace(/""/g, '"'))
-    const tag = fields[0]
-    const at = (rowTags as readonly string[]).indexOf(tag)
-    if (at < 0) issue(n, 'row-type', `unknown row type "${tag}"`)
-    else if (tag === 'GROUP') {
-      if (!previousBlank) issue(n, 'blank-line', 'groups must be separated by a blank line')
-      group = { name: fields[1] ?? '', line: n, headings: [], units: [], types: [], data: [] }
+    if (tag === 'GROUP') {
+      if (!blankBefore) report(n, '2', 'a GROUP row must follow a blank line', true)
+      if (fields.length !== 2) report(n, '4', `a GROUP row has 2 fields, this one ${fields.length}`)
+      group = {
+        name: fields[1] ?? '',
+        line: n,
+        headingLine: n,
+        unitLine: n,
+        typeLine: n,
+        headings: [],
+        units: [],
+        types: [],
+        data: [],
+      }
+      const first = seen.get(group.name)
+      // From memory of the rules' intent: a group is written once, its rows together.
+      if (first)
+        report(n, '2', `group ${group.name} appears a second time (first at line ${first})`)
+      else seen.set(group.name, n)
       groups.push(group)
-      last = 0
-      if (fields.length !== 2) issue(n, 'field-count', 'a GROUP row has exactly two fields')
-    } else if (!group) issue(n, 'row-order', `${tag} row outside a group`)
-    else {
-      const expected = Math.min(last + 1, 4)
-      if (at > expected) issue(n, 'row-order', `missing ${rowTags[expected]} row before ${tag}`)
-      else if (at < expected && !(at === 4 && last === 4))
-        issue(n, 'row-order', `${tag} row out of order`)
-      last = Math.max(last, at)
-      if (tag === 'HEADING') group.headings = fields.slice(1)
-      else if (fields.length !== group.headings.length + 1)
-        issue(
-          n,
-          'field-count',
-          `${fields.length} fields, HEADING row has ${group.headings.length + 1}`,
-        )
-      if (tag === 'UNIT') group.units = fields.slice(1)
-      if (tag === 'TYPE') group.types = fields.slice(1)
-      if (tag === 'DATA') group.data.push({ line: n, fields: fields.slice(1) })
+      last = 'GROUP'
+    } else if (!group) {
+      report(n, '2b', `a ${tag} row with no GROUP row above it`)
+    } else {
+      rowInGroup(group, tag, fields, n)
     }
-    previousBlank = false
+    blankBefore = false
   })
   for (const g of groups) {
-    if (!g.headings.length) issue(g.line, 'row-order', `group ${g.name} has no HEADING row`)
-    else if (!g.units.length) issue(g.line, 'row-order', `group ${g.name} has no UNIT row`)
-    else if (!g.types.length) issue(g.line, 'row-order', `group ${g.name} has no TYPE row`)
+    if (!g.headings.length) report(g.line, '2b', `group ${g.name} has no HEADING row`)
+    else if (g.unitLine === g.line) report(g.line, '2b', `group ${g.name} has no UNIT row`)
+    else if (g.typeLine === g.line) report(g.line, '2b', `group ${g.name} has no TYPE row`)
+    if (!g.data.length) report(g.line, '2', `group ${g.name} has no DATA rows`)
   }
   return { groups, issues }
+
+  function rowInGroup(g: ParsedGroup, tag: Descriptor, fields: string[], n: number) {
+    const at = order.indexOf(tag)
+    const was = last ? order.indexOf(last) : 0
+    if (tag !== 'DATA' && at <= was) report(n, '2b', `a second ${tag} row in group ${g.name}`)
+    else if (at > Math.min(was + 1, 4))
+      report(n, '2b', `${tag} row before the ${order[was + 1]} row of group ${g.name}`)
+    last = at > was ? tag : last
+    if (tag === 'HEADING') {
+      if (!g.headings.length) {
+        g.headings = fields.slice(1)
+        g.headingLine = n
+      }
+      return
+    }
+    if (fields.length !== g.headings.length + 1)
+      report(n, '4', `${fields.length} fields where the HEADING row has ${g.headings.length + 1}`)
+    if (tag === 'UNIT' && g.unitLine === g.line) {
+      g.units = fields.slice(1)
+      g.unitLine = n
+    } else if (tag === 'TYPE' && g.typeLine === g.line) {
+      g.types = fields.slice(1)
+      g.typeLine = n
+    } else if (tag === 'DATA') g.data.push({ line: n, fields: fields.slice(1) })
+  }
 }

@@ -98,11 +98,11 @@ export function discTable(data: PackData): AgsTable {
       DISC_DIP: dp(s.dip, 2),
       DISC_DIR: dp(s.dipDirection, 2),
       DISC_RGH: s.roughness ?? '',
-      DISC_JRC: s.jrc === null ? '' : String(s.jrc),
+      // DISC_JRC is 0DP in the dictionary: JRC is read off the Barton and Choubey (1977)
+      // profiles to the nearest whole number (common practice).
+      DISC_JRC: dp(s.jrc, 0),
       DISC_APT: dp(s.apertureMm, 1),
       DISC_INFM: s.infillType ?? '',
-      // Persistence cannot be measured on core: say so rather than leave it blank.
-      DISC_PERS: s.persistence ?? 'not determined',
       DISC_WETH: s.wallWeathering ?? '',
       DISC_REM: s.comment,
       DISC_ALPH: dp(s.alpha, 1),
@@ -113,6 +113,8 @@ export function discTable(data: PackData): AgsTable {
       DISC_INTV: a?.interval ?? '',
       DISC_TWGT: dp(s.terzaghiWeight, 3),
       DISC_FLAG: s.flags.join(';'),
+      // Persistence cannot be measured on core: say so rather than leave it blank.
+      DISC_PRCL: s.persistence ?? 'not determined',
     }
   })
   return { name: 'DISC', headings: headingsOf('DISC'), rows }

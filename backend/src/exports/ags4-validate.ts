@@ -1,114 +1,93 @@
-import { agsGroups } from './ags4-dictionary'
-import { parseAgs, type AgsIssue, type ParsedGroup } from './ags4-parse'
-import { knownTypes, valueFits } from './ags4-values'
+import { buildContext, type AgsContext } from './ags4-context'
+import { issueSink, parseAgs, type AgsIssue, type ParsedGroup } from './ags4-parse'
+import { checkData } from './ags4-rules-data'
+import { checkFile } from './ags4-rules-file'
+import { checkParents, checkRecordLinks } from './ags4-rules-links'
+import { checkNames } from './ags4-rules-names'
+import { AGS_EDITION_FORM } from '../../../schema/ags'
+import { builtInDictionary, type StandardDictionary } from './ags4-standard'
+import { describeUnchecked, type Unchecked } from './ags4-unchecked'
 
 export type { AgsIssue } from './ags4-parse'
+export type { Unchecked } from './ags4-unchecked'
+export { AGS_EDITIONS } from './ags4-standard'
 
-export const AGS_EDITIONS = ['4.0.3', '4.0.4', '4.1', '4.1.1', '4.2']
-const headingForm = /^[A-Z0-9]{4}_[A-Z0-9]{1,4}$/
+export interface AgsCheck {
+  /** TRAN_AGS as the file gives it. */
+  edition: string | null
+  /** The dictionary the groups and headings were checked against. */
+  dictionary: { edition: string; source: StandardDictionary['source'] }
+  issues: AgsIssue[]
+  /** What the dictionary in use could not settle (built-in groups only), by group and line. */
+  unchecked: Unchecked[]
+  /** What the check could not settle from the file alone. */
+  notes: string[]
+  groups: { name: string; line: number; rows: number }[]
+}
+
+/** TRAN_AGS of parsed groups: the edition whose dictionary the file asks to be checked by. */
+export function declaredEdition(groups: ParsedGroup[]): string | null {
+  const tran = groups.find((g) => g.name === 'TRAN')
+  const i = tran?.headings.indexOf('TRAN_AGS') ?? -1
+  return (i >= 0 && tran?.data[0]?.fields[i]) || null
+}
 
 /**
- * Checks AGS4 text against the published rules Downdip relies on and returns every violation
- * with its line: syntax (see parseAgs), group and heading names, UNIT/TYPE/ABBR/DICT listings,
- * value formats by TYPE, one-row PROJ and TRAN, edition, unique keys, required fields, parents.
+ * Checks AGS4 text against Rules 1–20 of the AGS4 data format, every finding with its rule and
+ * line, using `dictionary`: the declared edition's loaded dictionary where the caller has one,
+ * else the groups Downdip writes, with what they cannot settle listed as unchecked.
  */
-export function validateAgs(text: string): AgsIssue[] {
-  const { groups, issues } = parseAgs(text)
-  const issue = (line: number, rule: string, message: string) =>
-    issues.push({ line, rule, message })
-  const byName = new Map<string, ParsedGroup>()
-  for (const g of groups) {
-    if (!/^[A-Z0-9]{4}$/.test(g.name))
-      issue(g.line, 'group-name', `group name "${g.name}" is not 4 upper-case characters`)
-    if (byName.has(g.name)) issue(g.line, 'group-name', `group ${g.name} appears twice`)
-    byName.set(g.name, g)
-  }
-  const column = (group: string, heading: string) => {
-    const g = byName.get(group)
-    const i = g?.headings.indexOf(heading) ?? -1
-    return g && i >= 0 ? g.data.map((r) => r.fields[i]) : []
-  }
-  const units = new Set(column('UNIT', 'UNIT_UNIT'))
-  const types = new Set(column('TYPE', 'TYPE_TYPE'))
-  const abbrHeadings = column('ABBR', 'ABBR_HDNG')
-  const abbr = new Set(column('ABBR', 'ABBR_CODE').map((c, i) => `${abbrHeadings[i]}|${c}`))
-  const dictGroups = column('DICT', 'DICT_GRP')
-  const dictHeadings = column('DICT', 'DICT_HDNG')
-  const dictStats = column('DICT', 'DICT_STAT')
-  const declared = (group: string, heading: string) =>
-    dictGroups.some((g, i) => g === group && dictHeadings[i] === heading)
-  const locaIds = new Set(column('LOCA', 'LOCA_ID'))
+export function checkAgs(text: string, dictionary?: StandardDictionary): AgsCheck {
+  return checkParsedAgs(parseAgs(text), dictionary)
+}
 
-  for (const name of ['PROJ', 'TRAN', 'UNIT', 'TYPE']) {
-    if (!byName.has(name)) issue(1, 'required-group', `group ${name} is missing`)
+export function checkParsedAgs(
+  parsed: { groups: ParsedGroup[]; issues: AgsIssue[] },
+  dictionary: StandardDictionary = builtInDictionary(),
+): AgsCheck {
+  const { groups } = parsed
+  const issues = [...parsed.issues]
+  const ctx = buildContext(groups, issueSink(issues), dictionary)
+  checkFile(ctx)
+  checkNames(ctx)
+  checkData(ctx)
+  checkParents(ctx)
+  checkRecordLinks(ctx)
+  const edition = declaredEdition(groups)
+  issues.sort(
+    (a, b) =>
+      a.line - b.line || parseInt(a.rule) - parseInt(b.rule) || a.rule.localeCompare(b.rule),
+  )
+  return {
+    edition,
+    dictionary: { edition: dictionary.edition, source: dictionary.source },
+    issues,
+    unchecked: describeUnchecked(ctx.unchecked.items(), edition),
+    notes: notesOf(ctx, edition),
+    groups: groups.map((g) => ({ name: g.name, line: g.line, rows: g.data.length })),
   }
-  for (const name of ['PROJ', 'TRAN']) {
-    const g = byName.get(name)
-    if (g && g.data.length !== 1)
-      issue(g.line, 'single-row', `${name} must have exactly one DATA row`)
-  }
-  const tranAgs = column('TRAN', 'TRAN_AGS')[0]
-  if (byName.has('TRAN') && !AGS_EDITIONS.includes(tranAgs ?? ''))
-    issue(byName.get('TRAN')!.line, 'edition', `TRAN_AGS "${tranAgs ?? ''}" names no AGS4 edition`)
+}
 
-  for (const g of groups) {
-    const standard = (agsGroups[g.name] ?? []).filter((h) => !h.user)
-    const headingLine = g.line + 1
-    let userSeen = false
-    const keys: number[] = []
-    const required: number[] = []
-    g.headings.forEach((h, i) => {
-      if (h.length > 9)
-        issue(headingLine, 'heading-name', `heading "${h}" is longer than 9 characters`)
-      else if (!headingForm.test(h))
-        issue(headingLine, 'heading-name', `heading "${h}" is not GRUP_XXXX`)
-      if (g.headings.indexOf(h) !== i)
-        issue(headingLine, 'heading-name', `heading ${h} appears twice`)
-      const std = standard.find((s) => s.name === h)
-      if (std) {
-        if (userSeen)
-          issue(headingLine, 'heading-order', `standard heading ${h} after user-defined headings`)
-        if (std.status === 'KEY') keys.push(i)
-        if (std.status === 'REQUIRED') required.push(i)
-      } else {
-        userSeen = true
-        if (!declared(g.name, h))
-          issue(headingLine, 'dict', `user-defined heading ${g.name}.${h} is not declared in DICT`)
-        const stat = dictStats.find((_, k) => dictGroups[k] === g.name && dictHeadings[k] === h)
-        if (stat === 'KEY') keys.push(i)
-        if (stat === 'REQUIRED') required.push(i)
-      }
-      const unit = g.units[i] ?? ''
-      const type = g.types[i] ?? ''
-      if (unit && !units.has(unit))
-        issue(headingLine + 1, 'unit', `unit "${unit}" is not listed in UNIT`)
-      if (!knownTypes.test(type))
-        issue(headingLine + 2, 'type', `"${type}" is not an AGS4 data type`)
-      else if (!types.has(type))
-        issue(headingLine + 2, 'type', `type "${type}" is not listed in TYPE`)
-    })
-    const seenKeys = new Map<string, number>()
-    for (const row of g.data) {
-      row.fields.forEach((v, i) => {
-        const type = g.types[i] ?? ''
-        const problem = valueFits(v, type, g.units[i] ?? '')
-        if (problem) issue(row.line, 'value', `${g.headings[i]}: ${problem}`)
-        if (type === 'PA' && v && g.name !== 'ABBR' && !abbr.has(`${g.headings[i]}|${v}`))
-          issue(row.line, 'abbr', `${g.headings[i]} code "${v}" is not listed in ABBR`)
-      })
-      // Rule: REQUIRED fields hold data; KEY fields may be blank (e.g. DICT_HDNG on a GROUP row).
-      for (const i of required)
-        if (!row.fields[i]) issue(row.line, 'required', `${g.headings[i]} must not be empty`)
-      if (keys.length) {
-        const combo = keys.map((i) => row.fields[i]).join('\u0000')
-        const first = seenKeys.get(combo)
-        if (first) issue(row.line, 'key', `duplicate key (same as line ${first})`)
-        else seenKeys.set(combo, row.line)
-      }
-      const li = g.headings.indexOf('LOCA_ID')
-      if (g.name !== 'LOCA' && li >= 0 && !locaIds.has(row.fields[li]))
-        issue(row.line, 'parent', `LOCA_ID "${row.fields[li]}" has no LOCA row`)
-    }
-  }
-  return issues.sort((a, b) => a.line - b.line)
+function notesOf(ctx: AgsContext, edition: string | null): string[] {
+  const notes: string[] = []
+  const used = ctx.dictionary.edition
+  if (ctx.dictionary.source === 'built-in')
+    notes.push(
+      (edition && AGS_EDITION_FORM.test(edition)
+        ? edition === used
+          ? `The AGS ${edition} standard dictionary is not loaded`
+          : `The file declares AGS ${edition}, whose standard dictionary is not loaded`
+        : 'The file declares no known AGS4 edition') +
+        `: groups and headings were checked against the groups Downdip writes, as AGS ${used} defines them, and the file's own DICT group.`,
+    )
+  if (ctx.byName.has('FILE') || ctx.groups.some((g) => g.headings.includes('FILE_FSET')))
+    notes.push(
+      'Rule 20: whether each FILE_FSET folder and FILE_NAME exists beside the .ags file (FILE/<FILE_FSET>/<FILE_NAME>) cannot be checked from the file alone.',
+    )
+  return notes
+}
+
+/** Every finding (errors and warnings) of checkAgs, in line order. */
+export function validateAgs(text: string, dictionary?: StandardDictionary): AgsIssue[] {
+  return checkAgs(text, dictionary).issues
 }

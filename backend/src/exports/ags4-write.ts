@@ -1,4 +1,10 @@
-import { AGS_EDITION, typeDescriptions, unitDescriptions, userGroups } from './ags4-dictionary'
+import {
+  AGS_EDITION,
+  typeDescriptions,
+  unitDescriptions,
+  userGroups,
+  type AgsHeading,
+} from './ags4-dictionary'
 import { headingsOf, writeAgsTables, type AgsTable } from './ags4-format'
 import {
   coreTable,
@@ -21,6 +27,9 @@ const abbrDescriptions: Record<string, Record<string, string>> = {
   DICT_STAT: { KEY: 'Key field', REQUIRED: 'Required field', OTHER: 'Other field' },
   DISC_TYPE: Object.fromEntries(Object.values(discTypeCodes)),
 }
+
+/** TRAN_RECV when the pack names no recipient. */
+export const RECIPIENT_NOT_STATED = 'Not stated'
 
 export interface AgsMeta {
   packId: string
@@ -59,9 +68,12 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
         TRAN_DATE: meta.generatedAt.toISOString().slice(0, 10),
         TRAN_PROD: 'Downdip',
         TRAN_STAT: data.draft ? DRAFT_MARK : 'Design pack',
+        TRAN_DESC: 'Downdip design pack: discontinuities, set statistics and interval sign-off',
         TRAN_AGS: AGS_EDITION,
+        // REQUIRED (Rule 10b). Downdip records no client or addressee for a project, and a name
+        // guessed here would be a false statement in the file: the gap is said outright instead.
+        TRAN_RECV: RECIPIENT_NOT_STATED,
         TRAN_DLIM: '|',
-        TRAN_RCON: '+',
       },
     ],
   }
@@ -71,21 +83,22 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
   const described = [proj, tran, dict, ...body, ...sets]
   const abbr = abbrTable(described)
   const unitsAndTypes = [...described, abbr]
+  // Rule 15: every unit of a UNIT row and every PU value; Rule 17: every type and PT value.
   const unit: AgsTable = {
     name: 'UNIT',
     headings: headingsOf('UNIT'),
-    rows: [...new Set(unitsAndTypes.flatMap((t) => t.headings.map((h) => h.unit)))]
-      .filter((x) => x !== '')
-      .sort()
-      .map((x) => ({ UNIT_UNIT: x, UNIT_DESC: unitDescriptions[x] ?? x })),
+    rows: listed(unitsAndTypes, (h) => h.unit, 'PU').map((x) => ({
+      UNIT_UNIT: x,
+      UNIT_DESC: unitDescriptions[x] ?? x,
+    })),
   }
   const typeTable: AgsTable = {
     name: 'TYPE',
     headings: headingsOf('TYPE'),
-    // The TYPE group's own headings are X, so X is always listed.
-    rows: [...new Set([...unitsAndTypes, unit].flatMap((t) => t.headings.map((h) => h.type)))]
-      .sort()
-      .map((x) => ({ TYPE_TYPE: x, TYPE_DESC: typeDescriptions[x] ?? x })),
+    rows: listed([...unitsAndTypes, unit], (h) => h.type, 'PT').map((x) => ({
+      TYPE_TYPE: x,
+      TYPE_DESC: typeDescriptions[x] ?? x,
+    })),
   }
   return writeAgsTables([proj, tran, unit, typeTable, abbr, dict, ...body, ...sets])
 }
@@ -94,13 +107,13 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
 function dictTable(tables: AgsTable[]): AgsTable {
   const rows: Record<string, string>[] = []
   for (const t of tables) {
+    // A GROUP row has no status, type or unit; its parent is REQUIRED (dictionary note on DICT).
     if (userGroups[t.name])
       rows.push({
         DICT_TYPE: 'GROUP',
         DICT_GRP: t.name,
-        DICT_STAT: 'OTHER',
-        DICT_DESC: userGroups[t.name],
-        DICT_PGRP: 'LOCA',
+        DICT_DESC: userGroups[t.name].description,
+        DICT_PGRP: userGroups[t.name].parent,
       })
     for (const h of t.headings.filter((x) => x.user))
       rows.push({
@@ -116,6 +129,15 @@ function dictTable(tables: AgsTable[]): AgsTable {
   return { name: 'DICT', headings: headingsOf('DICT'), rows }
 }
 
+/** The distinct non-empty values of a heading property, and of every DATA value of `dataType`. */
+function listed(tables: AgsTable[], of: (h: AgsHeading) => string, dataType: string): string[] {
+  const values = tables.flatMap((t) => [
+    ...t.headings.map(of),
+    ...t.headings.filter((h) => h.type === dataType).flatMap((h) => t.rows.map((r) => r[h.name])),
+  ])
+  return [...new Set(values)].filter((x) => x !== undefined && x !== '').sort()
+}
+
 /** ABBR: every PA code the other groups use, with its description. */
 function abbrTable(tables: AgsTable[]): AgsTable {
   const seen = new Set<string>()
@@ -129,8 +151,15 @@ function abbrTable(tables: AgsTable[]): AgsTable {
         rows.push({
           ABBR_HDNG: h.name,
           ABBR_CODE: code,
-          ABBR_DESC: abbrDescriptions[h.name]?.[code] ?? code,
+          ABBR_DESC: abbrDescriptions[h.name]?.[code] ?? describeCode(h.name, code),
         })
       }
   return { name: 'ABBR', headings: headingsOf('ABBR'), rows }
+}
+
+/** Codes with no fixed description: the coordinate reference system of LOCA_GREF. */
+function describeCode(heading: string, code: string): string {
+  const epsg = /^EPSG:(\d+)$/.exec(code)
+  if (heading === 'LOCA_GREF' && epsg) return `EPSG ${epsg[1]} coordinate reference system`
+  return code
 }

@@ -72,6 +72,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { roles: members, title: 'Design packs' },
   },
   {
+    path: '/ags-check',
+    name: 'ags-check',
+    component: () => import('../views/AgsCheckView.vue'),
+    meta: { title: 'AGS4 file check' },
+  },
+  {
     path: '/admin/users',
     name: 'admin-users',
     component: () => import('../views/AdminUsersView.vue'),
