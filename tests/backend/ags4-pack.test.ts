@@ -35,6 +35,44 @@ describe('writeAgs() against the 4.1.1 dictionary', () => {
     })
   })
 
+  it('writeAgs() leaves out a group with no rows (Rule 2): a pack of bare intervals still passes', async () => {
+    const [project] = await ctx.fx.db
+      .select()
+      .from(projects)
+      .where(eq(projects.id, ctx.fx.projectId))
+    const data = await loadPackData(ctx.fx.db, project, {})
+    const bare = {
+      ...data,
+      stations: [],
+      runs: new Map(),
+      structures: [],
+      assignment: new Map(),
+      intervals: data.intervals.map((i) => ({
+        ...i,
+        analysis: { ...i.analysis, sets: [], intersections: [] },
+      })),
+    }
+    const text = writeAgs(bare, {
+      packId: '0a1b2c3d-0000-4000-8000-000000000000',
+      generatedAt: new Date('2026-12-01T10:00:00Z'),
+    })
+    const groups = parseAgs(text).groups.map((g) => g.name)
+    expect(groups).not.toContain('CORE')
+    expect(groups).not.toContain('DISC')
+    expect(groups).toContain('DINT')
+    expect(checkAgs(text).issues).toEqual([])
+    // no interval at all: no user-defined group, so no DICT either
+    const none = writeAgs(
+      { ...bare, intervals: [] },
+      {
+        packId: '0a1b2c3d-0000-4000-8000-000000000000',
+        generatedAt: new Date('2026-12-01T10:00:00Z'),
+      },
+    )
+    expect(parseAgs(none).groups.map((g) => g.name)).not.toContain('DICT')
+    expect(checkAgs(none).issues).toEqual([])
+  })
+
   it('writeAgs() passes every rule check with the 4.1.1 dictionary loaded', async () => {
     const check = checkAgs(await packAgs(), testDictionary)
     expect(check).toMatchObject({ issues: [], unchecked: [], dictionary: { source: 'loaded' } })

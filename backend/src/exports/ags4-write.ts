@@ -77,8 +77,17 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
       },
     ],
   }
-  const body = [locaTable(data), hornTable(data), coreTable(data), discTable(data), fracTable(data)]
-  const sets = [setTable(data), intervalTable(data)]
+  // Rule 2: a group holds at least one DATA row, so a group with nothing to say is left out (an
+  // interval without runs writes no CORE, one without sets no DSET).
+  const withRows = (tables: AgsTable[]) => tables.filter((t) => t.rows.length > 0)
+  const body = withRows([
+    locaTable(data),
+    hornTable(data),
+    coreTable(data),
+    discTable(data),
+    fracTable(data),
+  ])
+  const sets = withRows([setTable(data), intervalTable(data)])
   const dict = dictTable([...body, ...sets])
   const described = [proj, tran, dict, ...body, ...sets]
   const abbr = abbrTable(described)
@@ -100,7 +109,7 @@ export function writeAgs(data: PackData, meta: AgsMeta): string {
       TYPE_DESC: typeDescriptions[x] ?? x,
     })),
   }
-  return writeAgsTables([proj, tran, unit, typeTable, abbr, dict, ...body, ...sets])
+  return writeAgsTables([proj, tran, ...withRows([unit, typeTable, abbr, dict]), ...body, ...sets])
 }
 
 /** DICT: our user-defined groups and every user-defined heading, with status, type and unit. */
