@@ -5,8 +5,7 @@ import { renderWallRows, type PlantedTrace, type SynthOptions } from '../../../o
 import { imagePicks, images, structures, type Hole } from '../../../schema/index'
 import type { Tx } from './client'
 import { demoRandom, seedOf } from './random'
-import { writeFileChunks, writePyramid } from '../imports/images/index'
-import { TILE_ROWS } from '../imports/images/limits'
+import { TILE_ROWS, writeFileChunks, writePyramid } from '../imports/images/index'
 
 /**
  * The demo's televiewer: an acoustic amplitude image of the hole wall, high-side referenced on a

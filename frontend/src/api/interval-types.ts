@@ -39,6 +39,7 @@ export type DepthStructure = Pick<
   | 'polePlunge'
   | 'holeTrend'
   | 'holePlunge'
+  | 'declinationApplied'
   | 'terzaghiWeight'
   | 'flags'
   | 'confidence'

@@ -1,5 +1,4 @@
-import { LasReadError, readLas, type LasFile } from '../las/index'
-import { decodeLasText } from '../las/text'
+import { decodeLasText, LasReadError, readLas, type LasFile } from '../las/index'
 import { findArrays, type LasArray } from './las-arrays'
 import { lasRows, type LasRows } from './las-depths'
 import { refuseFile } from './limits'

@@ -1,5 +1,4 @@
-import type { HeaderItem, LasFile } from '../las/index'
-import { headerNumber } from '../las/header-line'
+import { headerNumber, type HeaderItem, type LasFile } from '../las/index'
 import { refuseFile } from './limits'
 
 /**

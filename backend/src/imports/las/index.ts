@@ -23,3 +23,5 @@ export {
   type CurveToStore,
 } from './stored-curve'
 export { deviationSurvey, type DeviationSurvey } from './deviation-survey'
+export { decodeLasText } from './text'
+export { headerNumber } from './header-line'

@@ -6,11 +6,19 @@ import type { ImageMeta } from '../../api/images'
 import { symbolOf } from '../track/structure-symbols'
 import type { DrawnSinusoid } from './image-types'
 
-/** A structure as the depth view has it; the server also sends the declination it applied. */
+/** A structure as the depth view has it, with the declination its conversion applied. */
 export type PredictableStructure = Pick<
   DepthStructure,
-  'id' | 'depth' | 'type' | 'source' | 'dip' | 'dipDirection' | 'holeTrend' | 'holePlunge'
-> & { declinationApplied?: number | null }
+  | 'id'
+  | 'depth'
+  | 'type'
+  | 'source'
+  | 'dip'
+  | 'dipDirection'
+  | 'holeTrend'
+  | 'holePlunge'
+  | 'declinationApplied'
+>
 
 export type ImageFrameOf = Pick<ImageMeta, 'azimuthReference' | 'northReference' | 'diameterMm'>
 
