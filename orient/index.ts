@@ -71,9 +71,34 @@ export type {
   StructureInputs,
   StoredStructure,
 } from './logged-structures'
+export { azimuthSdAt, uncertaintyColumnsOf } from './logged-uncertainty'
+export type { UncertaintyRow } from './logged-uncertainty'
+export { DEFAULT_ERROR_MODEL, surveyInstrumentOf } from './error-model'
+export type { ErrorModel, SurveyInstrument } from './error-model'
+export {
+  combinedCone95,
+  orientationUncertainty,
+  setMeanSystematic95,
+  uncertaintyColumns,
+  uncertaintyReasonBits,
+} from './uncertainty'
+export type { UncertaintyColumns, UncertaintyReason, UncertaintyResult } from './uncertainty'
 export { fitSinusoid, planeToImageSinusoid, referNorth, sinusoidDepthAt } from './sinusoid-fit'
 export type { ImageFrame, Sinusoid, SinusoidFit, TracePoint } from './sinusoid-fit'
 export { DEFAULT_MIN_SCORE, detectSinusoids } from './sinusoid-detect'
 export type { DetectOptions, ImageRows, SinusoidCandidate } from './sinusoid-detect'
 export { renderWallImage, renderWallRows } from './image-synth'
 export type { PlantedTrace, SynthOptions } from './image-synth'
+
+export { reconcileCoreImage } from './reconcile'
+export { RECONCILE_DEFAULTS } from './reconcile-types'
+export type {
+  ReconcileCoreItem,
+  ReconcileDepthTrend,
+  ReconcileImageItem,
+  ReconcileMatch,
+  ReconcileOptions,
+  ReconcileResult,
+  ReconcileRun,
+  ReconcileRunItem,
+} from './reconcile-types'

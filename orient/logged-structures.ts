@@ -4,6 +4,8 @@ import { prepareSurvey } from './survey-interpolate'
 import { TERZAGHI_CAP, terzaghiWeight, terzaghiWeightOfAlpha } from './terzaghi'
 import { imagePickToPlane, type ImagePick } from './image-pick'
 import type { Line, Plane } from './types'
+import type { ErrorModel } from './error-model'
+import { structureUncertainty } from './logged-uncertainty'
 
 /**
  * A logged structure's computed values and quality flags, as the server stores them and the entry
@@ -35,6 +37,8 @@ export interface ComputeContext {
     azimuth: number
     plunge: number
     declinationApplied?: number
+    /** The survey method as recorded (a gyroscopic tool has its own azimuth error). */
+    method?: string
   }[]
   /** Sorted by fromDepth. */
   /** Nominal hole diameter (same unit as image-pick diameters), when known. */
@@ -43,7 +47,11 @@ export interface ComputeContext {
     fromDepth: number
     toDepth: number
     markConfidence: 'good' | 'fair' | 'poor' | 'none'
+    /** Orientation-line rotation in force (degrees added to the run's logged betas), 0 or absent. */
+    betaRotation?: number
   }[]
+  /** With an error model, each structure gets its Monte Carlo 95 % cone (logged-uncertainty.ts). */
+  errorModel?: ErrorModel
 }
 
 export interface StructureInputs {
@@ -72,6 +80,15 @@ export interface StructureComputed {
   terzaghiWeight: number | null
   declinationApplied: number | null
   flags: StructureFlag[]
+  /** Run rotation added to the logged beta (core structures in a run), else null. */
+  betaRotationApplied: number | null
+  /** 95 % cone half-angle about the pole (degrees) and its ellipse; null without an error model or pole. */
+  uncertainty95: number | null
+  uncertaintyMajor: number | null
+  uncertaintyMinor: number | null
+  uncertaintyAxisTrend: number | null
+  uncertaintyAxisPlunge: number | null
+  uncertaintyReasons: string[]
 }
 
 /** Above this relative dip a sinusoid's height exceeds about 11 hole diameters: not a reliable pick. */
@@ -106,7 +123,7 @@ export function computeStructures(
   const lastStation = ctx.stations.length ? ctx.stations[ctx.stations.length - 1].depth : -Infinity
   const survey = prepareSurvey(ctx.stations)
   const previousBeta = new Map<string, number>()
-  return items.map((s) => {
+  const out = items.map((s): StructureComputed => {
     const flags: StructureFlag[] = []
     let hole: Line = ctx.planned
     if (ctx.stations.length === 0) flags.push('no-survey')
@@ -118,13 +135,15 @@ export function computeStructures(
     const found = runAt(ctx.runs, s.depth)
     let plane: Plane | undefined
     let weight: number | undefined
+    let rotation: number | null = null
     if (s.source === 'core') {
       if (!found) flags.push('outside-run')
       else if (found.run.markConfidence === 'poor') flags.push('poor-mark')
       const oriented = s.beta != null && found?.run.markConfidence !== 'none'
       const alpha = s.alpha ?? 0
       if (oriented) {
-        plane = coreToPlane({ alpha, beta: s.beta! }, hole, {
+        rotation = found?.run.betaRotation ?? 0
+        plane = coreToPlane({ alpha, beta: s.beta! + rotation }, hole, {
           reference: s.referenceLine ?? ctx.referenceLine,
         })
         if (found) {
@@ -165,8 +184,17 @@ export function computeStructures(
       terzaghiWeight: weight ?? null,
       declinationApplied: declinationAt(ctx.stations, s.depth),
       flags,
+      betaRotationApplied: rotation,
+      uncertainty95: null,
+      uncertaintyMajor: null,
+      uncertaintyMinor: null,
+      uncertaintyAxisTrend: null,
+      uncertaintyAxisPlunge: null,
+      uncertaintyReasons: [],
     }
   })
+  if (ctx.errorModel) structureUncertainty(ctx, ctx.errorModel, items, out, survey)
+  return out
 }
 
 /** A straight hole along its planned direction, when there is no survey yet. */
