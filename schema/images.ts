@@ -59,6 +59,8 @@ export const images = pgTable(
     sha256: text('sha256').notNull(),
     topDepth: doublePrecision('top_depth').notNull(),
     bottomDepth: doublePrecision('bottom_depth').notNull(),
+    /** Reconciliation depth shift in force (image − core, m): top/bottom = as logged − this. */
+    depthShiftApplied: doublePrecision('depth_shift_applied').notNull().default(0),
     /** Samples per turn. */
     width: integer('width').notNull(),
     /** Rows (depth samples) at full resolution. */

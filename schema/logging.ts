@@ -95,6 +95,20 @@ export const structures = pgTable(
       .array()
       .notNull()
       .default(sql`'{}'::text[]`),
+    /** Run rotation in force when computed (degrees added to the logged beta; 0 when none). */
+    betaRotationApplied: doublePrecision('beta_rotation_applied'),
+    /** Image side: depth shift in force (image depth − core depth, m); depth = logged − this. */
+    depthShiftApplied: doublePrecision('depth_shift_applied').notNull().default(0),
+    /** Monte Carlo 95 % cone half-angle about the pole (degrees), its ellipse and why it is large. */
+    uncertainty95: doublePrecision('uncertainty95'),
+    uncertaintyMajor: doublePrecision('uncertainty_major'),
+    uncertaintyMinor: doublePrecision('uncertainty_minor'),
+    uncertaintyAxisTrend: doublePrecision('uncertainty_axis_trend'),
+    uncertaintyAxisPlunge: doublePrecision('uncertainty_axis_plunge'),
+    uncertaintyReasons: text('uncertainty_reasons')
+      .array()
+      .notNull()
+      .default(sql`'{}'::text[]`),
     // condition (ISRM 1978 suggested methods)
     roughness: text('roughness'),
     jrc: doublePrecision('jrc'),

@@ -1,5 +1,6 @@
 import {
   boolean,
+  jsonb,
   doublePrecision,
   integer,
   pgEnum,
@@ -44,6 +45,8 @@ export const projects = pgTable('projects', {
   betaJumpDeg: doublePrecision('beta_jump_deg').notNull().default(60),
   /** Four eyes: the lead who approves an interval must not be the engineer who checked it. */
   fourEyes: boolean('four_eyes').notNull().default(true),
+  /** Measurement error model (1σ per input, keys of orient's ErrorModel); missing keys = defaults. */
+  errorModel: jsonb('error_model').$type<Record<string, number>>().notNull().default({}),
   /** Soft delete: hidden from members, restorable by an admin for 30 days, then purged. */
   deletedAt: timestamp('deleted_at', { withTimezone: true }),
   deletedBy: integer('deleted_by'),

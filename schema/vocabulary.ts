@@ -66,6 +66,23 @@ export type StructureSource = (typeof structureSources)[number]
 /** Sources a logger posts or a structure file holds; image structures come from picks. */
 export const enteredSources = ['core', 'true'] as const
 export type EnteredSource = (typeof enteredSources)[number]
+/** Reconciliation adjustments: the image side's depth shift, a core run's orientation-line rotation. */
+export const adjustmentKinds = ['depth-shift', 'run-rotation'] as const
+export type AdjustmentKind = (typeof adjustmentKinds)[number]
+
+/** Reconciliation verdicts on a core run's orientation line. */
+export const runVerdicts = ['ok', 'suspect', 'wrong'] as const
+export type RunVerdict = (typeof runVerdicts)[number]
+
+/** Why an orientation's uncertainty is large (uncertainty.ts). */
+export const uncertaintyReasons = [
+  'steep-hole', // bottom-of-hole mark poorly defined near vertical
+  'alpha-near-90', // ellipse nearly a circle: beta barely defined
+  'alpha-near-0', // plane near the core axis: small reading errors swing it
+  'no-survey', // the planned direction stood in for a survey
+] as const
+export type UncertaintyReason = (typeof uncertaintyReasons)[number]
+
 export const markConfidences = ['good', 'fair', 'poor', 'none'] as const
 export type MarkConfidence = (typeof markConfidences)[number]
 
