@@ -22,6 +22,13 @@ export const computedColumns = {
   terzaghiWeight: structures.terzaghiWeight,
   declinationApplied: structures.declinationApplied,
   flags: structures.flags,
+  betaRotationApplied: structures.betaRotationApplied,
+  uncertainty95: structures.uncertainty95,
+  uncertaintyMajor: structures.uncertaintyMajor,
+  uncertaintyMinor: structures.uncertaintyMinor,
+  uncertaintyAxisTrend: structures.uncertaintyAxisTrend,
+  uncertaintyAxisPlunge: structures.uncertaintyAxisPlunge,
+  uncertaintyReasons: structures.uncertaintyReasons,
   surveyRevision: structures.surveyRevision,
 } satisfies Record<keyof StructureComputed | 'surveyRevision', AnyPgColumn>
 

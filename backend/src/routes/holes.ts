@@ -12,6 +12,7 @@ import { imagesRouter } from './images'
 import { intervalsRouter } from './intervals'
 import { structuresRouter } from './structures'
 import { surveyRouter } from './survey'
+import { reconciliationRouter } from './reconciliation'
 import { createHole, listHoles, updateHole } from '../services/holes'
 import { deleteHole, listDeletedHoles, purgeHole, restoreHole } from '../services/hole-bin'
 
@@ -66,6 +67,7 @@ export function holesRouter(deps: ProjectDeps): Router {
   router.use('/:holeId/survey', surveyRouter(deps))
   router.use('/:holeId/images', imagesRouter(deps))
   router.use('/:holeId/images/:imageId', imagePicksRouter(deps))
+  router.use('/:holeId/reconciliation', reconciliationRouter(deps))
 
   router.get('/:holeId', (_req, res) => {
     res.json({ data: holeLocals(res) })

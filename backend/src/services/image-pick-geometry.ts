@@ -27,7 +27,7 @@ export interface RawSinusoid {
 /** What converting sinusoids of one image needs: the hole's compute context and the declination. */
 export interface ImageConversion {
   ctx: ComputeContext
-  image: Pick<Image, 'azimuthReference' | 'northReference' | 'diameterMm'>
+  image: Pick<Image, 'azimuthReference' | 'northReference' | 'diameterMm' | 'depthShiftApplied'>
   hole: Hole
   /** Degrees east, for magnetic-north images (0 otherwise). */
   declination: number
@@ -98,6 +98,8 @@ export function convertSinusoid(conv: ImageConversion, s: RawSinusoid, type: str
     pickDiameter: image.diameterMm,
     pickTroughAzimuth: trough,
     pickReference: north ? 'north' : 'highside',
+    // Picked on an image moved onto core depths: the logged depth is this + the shift.
+    depthShiftApplied: image.depthShiftApplied,
     pickAzimuthReference: north ? `north-${image.northReference ?? 'true'}` : 'highside',
   }
   const [computed] = computeStructures(conv.ctx, [storedInputs(inputs)])

@@ -21,7 +21,7 @@ import {
   checkRunSequence,
   guardRuns,
 } from './run-rules'
-import { lockHole } from './structure-context'
+import { lockHole, runRotations } from './structure-context'
 import { recomputeRanges, type DepthRange } from './structure-recompute'
 
 export { checkRunSequence } from './run-rules'
@@ -31,13 +31,13 @@ export function withMetrics(run: CoreRun) {
   return { ...run, metrics: runMetricsOf(run) ?? null }
 }
 
+/** The hole's runs with metrics and the orientation-line rotation in force (reconciliation). */
 export async function listRuns(db: Executor, holeId: number) {
-  const rows = await db
-    .select()
-    .from(coreRuns)
-    .where(eq(coreRuns.holeId, holeId))
-    .orderBy(asc(coreRuns.fromDepth))
-  return rows.map(withMetrics)
+  const [rows, rotations] = await Promise.all([
+    db.select().from(coreRuns).where(eq(coreRuns.holeId, holeId)).orderBy(asc(coreRuns.fromDepth)),
+    runRotations(db, holeId),
+  ])
+  return rows.map((r) => ({ ...withMetrics(r), betaRotation: rotations.get(r.id) ?? 0 }))
 }
 
 const pickRunFields = (r: CoreRun): RunInputT => ({

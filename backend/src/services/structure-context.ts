@@ -1,5 +1,6 @@
 import { and, asc, eq, gt, lte, sql } from 'drizzle-orm'
 import {
+  adjustments,
   coreRuns,
   holes,
   intervals,
@@ -9,7 +10,7 @@ import {
 } from '../../../schema/index'
 import type { Executor } from '../db/client'
 import { badRequest, notFound } from '../http/errors'
-import type { ComputeContext } from '../../../orient/index'
+import { DEFAULT_ERROR_MODEL, type ComputeContext, type ErrorModel } from '../../../orient/index'
 
 /**
  * Nominal hole diameter (mm) drilled for a wireline core size: NQ ≈ 75.7, HQ ≈ 96, PQ ≈ 122.6
@@ -23,25 +24,50 @@ export function holeDiameterMm(coreSize: string): number | undefined {
   return ({ NQ: 75.7, HQ: 96, PQ: 122.6 } as Record<string, number>)[size]
 }
 
-/** What computing a hole's structures needs: project conventions, survey, runs. */
+/** The project's error model: its stored values over the stated defaults (orient/error-model.ts). */
+export function errorModelOf(project: Pick<Project, 'errorModel'>): ErrorModel {
+  const stored = project.errorModel ?? {}
+  const model: Record<string, number> = { ...DEFAULT_ERROR_MODEL }
+  for (const key of Object.keys(DEFAULT_ERROR_MODEL))
+    if (typeof stored[key] === 'number' && Number.isFinite(stored[key])) model[key] = stored[key]
+  return model as unknown as ErrorModel
+}
+
+/**
+ * The orientation-line rotation in force per run of the hole: the newest run-rotation adjustment
+ * not undone (reconciliation), keyed by run id.
+ */
+export async function runRotations(db: Executor, holeId: number): Promise<Map<number, number>> {
+  const rows = await db.execute<{ run_id: number; value: number }>(sql`
+    select distinct on (${adjustments.runId}) ${adjustments.runId} as run_id, ${adjustments.value} as value
+    from ${adjustments}
+    where ${adjustments.holeId} = ${holeId} and ${adjustments.kind} = 'run-rotation'
+      and ${adjustments.undoneAt} is null
+    order by ${adjustments.runId}, ${adjustments.createdAt} desc, ${adjustments.id} desc`)
+  return new Map(rows.rows.map((r) => [Number(r.run_id), Number(r.value)]))
+}
+
+/** What computing a hole's structures needs: project conventions, error model, survey, runs. */
 export async function loadComputeContext(
   db: Executor,
   project: Project,
   hole: Hole,
 ): Promise<ComputeContext> {
-  const [stations, runs] = await Promise.all([
+  const [stations, runs, rotations] = await Promise.all([
     db
       .select({
         depth: surveyStations.depth,
         azimuth: surveyStations.azimuth,
         plunge: surveyStations.plunge,
         declinationApplied: surveyStations.declinationApplied,
+        method: surveyStations.method,
       })
       .from(surveyStations)
       .where(eq(surveyStations.holeId, hole.id))
       .orderBy(asc(surveyStations.depth)),
     db
       .select({
+        id: coreRuns.id,
         fromDepth: coreRuns.fromDepth,
         toDepth: coreRuns.toDepth,
         markConfidence: coreRuns.markConfidence,
@@ -49,6 +75,7 @@ export async function loadComputeContext(
       .from(coreRuns)
       .where(eq(coreRuns.holeId, hole.id))
       .orderBy(asc(coreRuns.fromDepth)),
+    runRotations(db, hole.id),
   ])
   return {
     steepThresholdDeg: project.steepThresholdDeg,
@@ -58,7 +85,8 @@ export async function loadComputeContext(
     planned: { trend: hole.plannedAzimuth, plunge: hole.plannedPlunge },
     holeDiameter: holeDiameterMm(hole.coreSize),
     stations,
-    runs,
+    runs: runs.map(({ id, ...r }) => ({ ...r, betaRotation: rotations.get(id) ?? 0 })),
+    errorModel: errorModelOf(project),
   }
 }
 
