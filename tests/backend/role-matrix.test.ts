@@ -3,6 +3,7 @@ import { eq } from 'drizzle-orm'
 import { readFileSync } from 'node:fs'
 import request from 'supertest'
 import {
+  adjustments,
   coreRuns,
   imageFiles,
   imagePicks,
@@ -31,6 +32,7 @@ import {
   type Fixture,
 } from './fixture'
 import { encodeTile } from '../../backend/src/services/image-rows'
+import { DEFAULT_ERROR_MODEL } from '../../orient/index'
 
 type Need =
   'public' | 'signed-in' | 'admin' | 'project-admin' | 'viewer' | 'logger' | 'engineer' | 'lead'
@@ -983,6 +985,65 @@ const cases: RouteCase[] = [
       return {
         path: `${I(fx, i.id)}/reopen`,
         body: { version: i.version, reason: 'recheck the set table' },
+      }
+    },
+  },
+  // core-to-image reconciliation: anyone reads it, engineers and leads accept or undo adjustments
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/holes/:holeId/reconciliation',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${H(fx)}/reconciliation?depthWindow=0.5&maxAngle=15` }),
+  },
+  {
+    method: 'post',
+    route: '/api/projects/:projectId/holes/:holeId/reconciliation/apply',
+    need: 'engineer',
+    ok: 201,
+    prepare: async (fx) => ({
+      path: `${H(fx)}/reconciliation/apply`,
+      body: { runRotations: [{ runId: (await freshRun(fx)).id, rotation: 12.5 }] },
+    }),
+  },
+  {
+    method: 'delete',
+    route: '/api/projects/:projectId/holes/:holeId/reconciliation/adjustments/:adjustmentId',
+    need: 'engineer',
+    ok: 200,
+    prepare: async (fx) => {
+      const run = await freshRun(fx)
+      const [a] = await fx.db
+        .insert(adjustments)
+        .values({ holeId: fx.holeId, kind: 'run-rotation', runId: run.id, value: 7 })
+        .returning()
+      return { path: `${H(fx)}/reconciliation/adjustments/${a.id}` }
+    },
+  },
+  // the project's error model: anyone reads it, the lead changes it
+  {
+    method: 'get',
+    route: '/api/projects/:projectId/error-model',
+    need: 'viewer',
+    ok: 200,
+    prepare: async (fx) => ({ path: `${P(fx)}/error-model` }),
+  },
+  {
+    method: 'put',
+    route: '/api/projects/:projectId/error-model',
+    need: 'lead',
+    ok: 200,
+    prepare: async (fx) => {
+      // The role is what is tested here: intervals approved by other cases would refuse the
+      // recompute (freezing has its own tests in error-model.test.ts).
+      await fx.db.update(intervals).set({ status: 'draft' }).where(eq(intervals.holeId, fx.holeId))
+      const [p] = await fx.db.select().from(projects).where(eq(projects.id, fx.projectId))
+      return {
+        path: `${P(fx)}/error-model`,
+        body: {
+          model: { ...DEFAULT_ERROR_MODEL, alphaSd: 1 + unique() / 100 },
+          version: p.version,
+        },
       }
     },
   },

@@ -1,5 +1,6 @@
 import { Router } from 'express'
 import {
+  ErrorModelUpdateBody,
   IdParam,
   MemberAddBody,
   MemberUpdateBody,
@@ -16,6 +17,7 @@ import { commentsRouter } from './comments'
 import { auditRouter } from './audit'
 import type { ProjectDeps } from './deps'
 import { createInvitation } from '../services/invitations'
+import { errorModelAnswer, updateErrorModel } from '../services/error-model'
 import {
   deleteProject,
   listDeletedProjects,
@@ -94,6 +96,19 @@ export function projectRouter(deps: ProjectDeps): Router {
       const { body } = inputOf(res, { body: ProjectUpdateBody })
       const after = await updateProject(db, mail, req.user!.id, project, body)
       res.json({ data: { ...after, role, collarConvergence: await collarConvergence(db, after) } })
+    },
+  )
+  router.get('/error-model', (_req, res) => {
+    res.json({ data: errorModelAnswer(projectLocals(res).project) })
+  })
+  router.put(
+    '/error-model',
+    requireRole('lead'),
+    validate({ body: ErrorModelUpdateBody }),
+    async (req, res) => {
+      const { body } = inputOf(res, { body: ErrorModelUpdateBody })
+      const { project } = projectLocals(res)
+      res.json({ data: await updateErrorModel(db, mail, req.user!.id, project, body) })
     },
   )
   router.delete('/', requireAdmin, async (req, res) => {

@@ -1,5 +1,6 @@
 import {
   angleBetweenPlanes,
+  combinedCone95,
   fisherStats,
   kinematicChecks,
   planeIntersection,
@@ -18,6 +19,7 @@ import {
 import type { Executor } from '../db/client'
 import { loadIntervalData, type IntervalStructure } from './interval-data'
 import { resolveSettings, type AnalysisSettings } from './intervals'
+import { setSystematicTerms } from './set-uncertainty'
 
 /** ISRM (1978) spacing classes, millimetres. */
 const spacingClasses: [number, string][] = [
@@ -97,8 +99,17 @@ export async function analyseInterval(
   const weightOf = (s: IntervalStructure) =>
     used.weighting === 'terzaghi' ? (s.terzaghiWeight ?? 1) : 1
   const bySet = assignSets(data.structures, data.sets, data.members)
+  const memberRows = (setId: number) => oriented.filter((s) => bySet.get(s.id) === setId)
+  const systematic = await setSystematicTerms(
+    db,
+    interval.holeId,
+    data.sets.map((set) => {
+      const rows = memberRows(set.id)
+      return { setId: set.id, ids: rows.map((r) => r.id), weights: rows.map(weightOf) }
+    }),
+  )
   const sets = data.sets.map((set) => {
-    const rows = oriented.filter((s) => bySet.get(s.id) === set.id)
+    const rows = memberRows(set.id)
     const stats = fisherStats(rows.map(poleOfRow), { weights: rows.map(weightOf) })
     const mean: Plane | undefined = stats ? planeOfPole(stats.mean) : undefined
     return {
@@ -121,6 +132,11 @@ export async function analyseInterval(
         : null,
       kappa: round(stats?.kappa, 1),
       alpha95: round(stats?.alpha95),
+      // The survey error shared by the hole's structures does not average out with more of them.
+      systematic95: round(systematic.get(set.id)),
+      uncertainty95: round(
+        stats ? (combinedCone95(stats.alpha95, systematic.get(set.id)) ?? undefined) : undefined,
+      ),
       sphericalVariance: round(stats?.sphericalVariance, 4),
       spacing: spacing(rows, stats?.mean, data.hole),
       plane: mean,

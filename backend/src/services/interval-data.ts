@@ -22,6 +22,8 @@ export interface IntervalStructure {
   polePlunge: number | null
   terzaghiWeight: number | null
   flags: string[]
+  /** Monte Carlo 95 % cone about the pole (degrees), null when not computed. */
+  uncertainty95: number | null
 }
 
 /** What an interval's analysis reads: its structures (filtered), sets, explicit members, hole axis. */
@@ -42,6 +44,7 @@ export async function loadIntervalData(
       polePlunge: structures.polePlunge,
       terzaghiWeight: structures.terzaghiWeight,
       flags: structures.flags,
+      uncertainty95: structures.uncertainty95,
     })
     .from(structures)
     .where(
