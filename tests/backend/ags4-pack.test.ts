@@ -160,7 +160,18 @@ describe('writeAgs() against the 4.1.1 dictionary', () => {
       'DISC_INTV',
       'DISC_TWGT',
       'DISC_FLAG',
+      'DISC_U95',
+      'DISC_UWHY',
+      'DISC_ROTN',
+      'DISC_DSHF',
       'DISC_PRCL',
+    ])
+    // the set means' two cones beside Fisher's alpha95, declared as our own headings
+    const dset = dict.filter((r) => r.DICT_GRP === 'DSET').map((r) => r.DICT_HDNG)
+    expect(dset.slice(dset.indexOf('DSET_A95'), dset.indexOf('DSET_A95') + 3)).toEqual([
+      'DSET_A95',
+      'DSET_SY95',
+      'DSET_U95',
     ])
   })
 

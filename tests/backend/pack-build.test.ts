@@ -182,8 +182,8 @@ describe('a whole-project pack', () => {
     expect(svg.match(/<circle [^>]*r="2.5"/g)).toHaveLength(7)
     const png = await fileText(as.engineer!, id, `net-${ctx.intervalId}.png`)
     expect(png.subarray(1, 4).toString('latin1')).toBe('PNG')
-    // IHDR width and height: the 600 x 470 SVG drawn at zoom 2
-    expect([png.readUInt32BE(16), png.readUInt32BE(20)]).toEqual([1200, 940])
+    // IHDR width and height: the 600 x 484 SVG drawn at zoom 2
+    expect([png.readUInt32BE(16), png.readUInt32BE(20)]).toEqual([1200, 968])
   })
 })
 

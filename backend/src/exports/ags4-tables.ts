@@ -113,6 +113,10 @@ export function discTable(data: PackData): AgsTable {
       DISC_INTV: a?.interval ?? '',
       DISC_TWGT: dp(s.terzaghiWeight, 3),
       DISC_FLAG: s.flags.join(';'),
+      DISC_U95: dp(s.uncertainty95, 2),
+      DISC_UWHY: s.uncertaintyReasons.join(';'),
+      DISC_ROTN: dp(s.betaRotationApplied, 2),
+      DISC_DSHF: s.source === 'image' ? dp(s.depthShiftApplied, 3) : '',
       // Persistence cannot be measured on core: say so rather than leave it blank.
       DISC_PRCL: s.persistence ?? 'not determined',
     }
@@ -162,6 +166,8 @@ export function setTable(data: PackData): AgsTable {
       DSET_DIR: dp(s.mean?.dipDirection, 2),
       DSET_FK: dp(s.kappa, 1),
       DSET_A95: dp(s.alpha95, 2),
+      DSET_SY95: dp(s.systematic95, 2),
+      DSET_U95: dp(s.uncertainty95, 2),
       DSET_SVAR: dp(s.sphericalVariance, 4),
       DSET_SPAC: dp(s.spacing?.true, 3),
       DSET_SCLS: s.spacing?.isrmClass ?? '',

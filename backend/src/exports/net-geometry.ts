@@ -13,7 +13,8 @@ import type { Analysis } from './pack-types'
 export interface NetFigure {
   poles: { point: NetPoint; setIndex: number }[]
   circles: { setIndex: number; points: NetPoint[] }[]
-  cones: { setIndex: number; points: NetPoint[] }[]
+  /** Sampling (Fisher alpha95) and combined (alpha95 with the shared survey error) cones. */
+  cones: { setIndex: number; kind: 'sampling' | 'combined'; points: NetPoint[] }[]
   intersections: { point: NetPoint; label: string }[]
   setNames: string[]
 }
@@ -22,7 +23,8 @@ const projected = (lines: Line[] | undefined, projection: NetProjection) =>
   (lines ?? []).map((l) => project(l, projection)).filter((p): p is NetPoint => p !== undefined)
 
 /**
- * Poles coloured by set, each set's mean great circle and its alpha95 cone about the mean pole,
+ * Poles coloured by set, each set's mean great circle, its alpha95 cone and its combined cone
+ * (alpha95 with the survey error the hole's structures share) about the mean pole,
  * and the set-pair intersections.
  */
 export function netFigure(analysis: Analysis, projection: NetProjection): NetFigure {
@@ -37,14 +39,25 @@ export function netFigure(analysis: Analysis, projection: NetProjection): NetFig
   const circles = analysis.sets.flatMap((s, i) =>
     s.mean ? [{ setIndex: i, points: projected(greatCircle(s.mean, 90), projection) }] : [],
   )
-  const cones = analysis.sets.flatMap((s, i) =>
-    s.meanPole && s.alpha95
-      ? (smallCircle(s.meanPole, s.alpha95, 90) ?? []).map((arc) => ({
+  const cone = (
+    i: number,
+    pole: Line | null,
+    angle: number | null,
+    kind: 'sampling' | 'combined',
+  ) =>
+    pole && angle
+      ? (smallCircle(pole, angle, 90) ?? []).map((arc) => ({
           setIndex: i,
+          kind,
           points: projected(arc, projection),
         }))
-      : [],
-  )
+      : []
+  const cones = analysis.sets.flatMap((s, i) => [
+    ...cone(i, s.meanPole, s.alpha95, 'sampling'),
+    ...(s.uncertainty95 && s.uncertainty95 > (s.alpha95 ?? 0)
+      ? cone(i, s.meanPole, s.uncertainty95, 'combined')
+      : []),
+  ])
   const intersections = analysis.intersections.flatMap((x) => {
     if (x.trend === null || x.plunge === null) return []
     const point = project({ trend: x.trend, plunge: x.plunge }, projection)

@@ -28,7 +28,7 @@ export function netSvg(
   )
   for (const c of fig.cones)
     parts.push(
-      `<path d="${path(c.points)}" fill="none" stroke="${colourOf(c.setIndex)}" stroke-dasharray="3 2"/>`,
+      `<path d="${path(c.points)}" fill="none" stroke="${colourOf(c.setIndex)}" stroke-dasharray="${c.kind === 'combined' ? '8 3' : '3 2'}"/>`,
     )
   for (const c of fig.circles)
     parts.push(
@@ -52,7 +52,7 @@ export function netSvg(
     ),
   )
   return [
-    `<svg xmlns="http://www.w3.org/2000/svg" width="600" height="470" viewBox="0 0 600 470" font-family="Fira Sans, sans-serif">`,
+    `<svg xmlns="http://www.w3.org/2000/svg" width="600" height="484" viewBox="0 0 600 484" font-family="Fira Sans, sans-serif">`,
     `<title>${esc(title)}</title>`,
     `<text x="10" y="20" font-size="14">${esc(title)}</text>`,
     ...(draft
@@ -60,7 +60,8 @@ export function netSvg(
           `<text x="590" y="20" font-size="14" font-weight="bold" text-anchor="end" fill="#b91c1c">${DRAFT_MARK}</text>`,
         ]
       : []),
-    `<text x="10" y="460" font-size="11">Lower hemisphere, ${esc(projectionLabel)}; poles, set mean great circles, alpha95 cones, intersections (x)</text>`,
+    `<text x="10" y="460" font-size="11">Lower hemisphere, ${esc(projectionLabel)}; poles, set mean great circles, intersections (x);</text>`,
+    `<text x="10" y="475" font-size="11">alpha95 cones (short dashes), 95 % cones with the shared survey error (long dashes)</text>`,
     ...parts,
     '</svg>',
     '',

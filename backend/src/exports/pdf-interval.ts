@@ -8,17 +8,19 @@ const f = (x: number | null | undefined, d: number) =>
   x === null || x === undefined || !Number.isFinite(x) ? '-' : x.toFixed(d)
 
 const setColumns: Column[] = [
-  { title: 'Set', width: 52 },
+  { title: 'Set', width: 46 },
   { title: 'N', width: 28, align: 'right' },
-  { title: 'N weighted', width: 48, align: 'right' },
-  { title: '% data', width: 38, align: 'right' },
+  { title: 'N weighted', width: 40, align: 'right' },
+  { title: '% data', width: 34, align: 'right' },
   { title: 'Dip', width: 36, align: 'right' },
-  { title: 'Dip dir.', width: 40, align: 'right' },
-  { title: 'Fisher K', width: 42, align: 'right' },
+  { title: 'Dip dir.', width: 38, align: 'right' },
+  { title: 'Fisher K', width: 38, align: 'right' },
   { title: 'a95', width: 34, align: 'right' },
-  { title: 'Sph. var.', width: 44, align: 'right' },
-  { title: 'True sp. m', width: 50, align: 'right' },
-  { title: 'ISRM spacing', width: 103 },
+  { title: 'Survey 95', width: 38, align: 'right' },
+  { title: 'Comb. 95', width: 38, align: 'right' },
+  { title: 'Sph. var.', width: 40, align: 'right' },
+  { title: 'True sp. m', width: 44, align: 'right' },
+  { title: 'ISRM spacing', width: 60 },
 ]
 
 function qualityLines(data: PackData, p: PackInterval): string[] {
@@ -82,11 +84,23 @@ export function drawIntervalPage(doc: Pdf, data: PackData, p: PackInterval, fig:
       f(s.mean?.dipDirection, 1),
       f(s.kappa, 1),
       f(s.alpha95, 1),
+      f(s.systematic95, 1),
+      f(s.uncertainty95, 1),
       f(s.sphericalVariance, 4),
       f(s.spacing?.true, 3),
       s.spacing?.isrmClass ?? '-',
     ]),
   )
+  doc
+    .font('body')
+    .fontSize(7)
+    .text(
+      'a95: Fisher (1953) 95 % cone of the mean from the scatter of the members. Survey 95: 95 % cone of the mean from the survey error every structure of the hole shares (project error model, Monte Carlo). Comb. 95: both, added in quadrature.',
+      m,
+      y,
+      { width: CONTENT_WIDTH },
+    )
+  y = doc.y + 6
   doc.font('bold').fontSize(10).text('Intersections of set means', m, y)
   y = drawTable(
     doc,

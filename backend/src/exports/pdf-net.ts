@@ -31,7 +31,12 @@ export function drawNet(doc: Pdf, fig: NetFigure, cx: number, cy: number, r: num
     .stroke()
   for (const c of fig.cones)
     if (polyline(c.points))
-      doc.lineWidth(0.7).dash(2, { space: 1.5 }).strokeColor(colourOf(c.setIndex)).stroke().undash()
+      doc
+        .lineWidth(0.7)
+        .dash(c.kind === 'combined' ? 5 : 2, { space: c.kind === 'combined' ? 2 : 1.5 })
+        .strokeColor(colourOf(c.setIndex))
+        .stroke()
+        .undash()
   for (const c of fig.circles)
     if (polyline(c.points)) doc.lineWidth(1.1).strokeColor(colourOf(c.setIndex)).stroke()
   for (const p of fig.poles)
