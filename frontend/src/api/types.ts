@@ -116,7 +116,11 @@ export type Station = Wire<SurveyStation>
 // ---- Logging: core runs and structures of a hole (CSV imports: import-types.ts) ----
 
 export type RunInput = RunInputT
-export type Run = Wire<CoreRunRow> & { metrics: RunMetrics | null }
+export type Run = Wire<CoreRunRow> & {
+  metrics: RunMetrics | null
+  /** Orientation-line rotation in force (degrees added to the logged betas); lists carry it. */
+  betaRotation?: number
+}
 
 /**
  * What a logger enters for a structure; condition attributes after ISRM (1978). The type is kept

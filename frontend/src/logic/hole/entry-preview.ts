@@ -38,6 +38,7 @@ export function computeContext(
         fromDepth: r.fromDepth,
         toDepth: r.toDepth,
         markConfidence: r.markConfidence,
+        betaRotation: r.betaRotation ?? 0,
       })),
   }
 }
