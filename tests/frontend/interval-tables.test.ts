@@ -57,6 +57,8 @@ function setRow(weighted: boolean): {
     alpha95: r(stats.alpha95),
     sphericalVariance: r(stats.sphericalVariance, 4),
     spacing: { apparent: 0.9, true: 0.41, isrmClass: 'moderate' },
+    systematic95: null,
+    uncertainty95: null,
     version: 1,
   }
   return { row, stats }

@@ -19,6 +19,7 @@ const project: Project = {
   betaJumpDeg: 60,
   netProjection: 'equal-area',
   fourEyes: true,
+  errorModel: {},
   version: 4,
   createdAt: '2025-01-01T00:00:00Z',
   updatedAt: '2025-01-01T00:00:00Z',

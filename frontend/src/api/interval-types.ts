@@ -44,6 +44,14 @@ export type DepthStructure = Pick<
   | 'flags'
   | 'confidence'
   | 'comment'
+  | 'betaRotationApplied'
+  | 'depthShiftApplied'
+  | 'uncertainty95'
+  | 'uncertaintyMajor'
+  | 'uncertaintyMinor'
+  | 'uncertaintyAxisTrend'
+  | 'uncertaintyAxisPlunge'
+  | 'uncertaintyReasons'
 >
 
 /** A core run as the depth view reads it (GET …/holes/:holeId/runs). */
@@ -109,6 +117,10 @@ export type AnalysisSet = Pick<
   mean: Plane | null
   meanPole: Line | null
   spacing: SetSpacing | null
+  /** Survey error shared by the hole's structures (95 %, degrees): it does not shrink with N. */
+  systematic95: number | null
+  /** Sampling and survey combined: √(alpha95² + systematic95²) (degrees). */
+  uncertainty95: number | null
 }
 
 /** A line as the analysis rounds it: null when there is none (parallel means). */

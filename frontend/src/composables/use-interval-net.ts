@@ -73,6 +73,7 @@ export function useIntervalNet(
       coneAngle: s.coneAngle,
       meanPole: s.meanPole,
       alpha95: s.alpha95,
+      uncertainty95: s.uncertainty95 ?? null,
     })),
   )
 

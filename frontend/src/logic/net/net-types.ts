@@ -26,7 +26,10 @@ export interface NetSetMark {
   centre: Line
   coneAngle: number
   meanPole: Line | null
+  /** Sampling cone of the mean pole (Fisher α95, degrees). */
   alpha95: number | null
+  /** Sampling and survey combined (95 %, degrees): the wider cone drawn about the same mean. */
+  uncertainty95: number | null
 }
 
 export interface NetIntersectionMark {
