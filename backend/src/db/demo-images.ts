@@ -6,13 +6,14 @@ import { imagePicks, images, structures, type Hole } from '../../../schema/index
 import type { Tx } from './client'
 import { demoRandom, seedOf } from './random'
 import { TILE_ROWS, writeFileChunks, writePyramid } from '../imports/images/index'
+import { demoImageBeta, demoImageOffset } from './demo-logs'
 
 /**
  * The demo's televiewer: an acoustic amplitude image of the hole wall, high-side referenced on a
  * 96 mm hole, 4 mm a row and 144 samples a turn, rendered by orient's synthetic wall renderer with
  * every image pick the seed made drawn as its sinusoid (textured, noisy, seeded), so the picks sit
- * on visible traces — and the oriented core structures the seed did not pick drawn too, a few
- * centimetres deeper as the picks are (demo-logs.ts), left for the interpreter and the suggestions
+ * on visible traces — and the oriented core structures the seed did not pick drawn too, as much
+ * deeper as the picks are (demo-logs.ts demoImageOffset), left for the interpreter and the suggestions
  * to find. Invented data: no real log.
  */
 const ROW_STEP = 0.004
@@ -52,12 +53,13 @@ export async function seedDemoImage(tx: Tx, hole: Hole, adminId: number | null):
     .select({ depth: structures.depth, alpha: structures.alpha, beta: structures.beta })
     .from(structures)
     .where(and(eq(structures.holeId, hole.id), eq(structures.source, 'core')))
+  const offset = demoImageOffset(hole.name).depth
   const unpicked = core.filter(
     (c) =>
       c.alpha !== null &&
       c.beta !== null &&
       c.alpha > 10 &&
-      !usable.some((p) => Math.abs(p.depth - c.depth - 0.04) < 0.05),
+      !usable.some((p) => Math.abs(p.depth - c.depth - offset) < 0.05),
   )
   const final = hole.finalDepth ?? usable.at(-1)!.depth + 2
   const top = Math.max(0, Math.floor(usable[0].depth - 2))
@@ -73,13 +75,13 @@ export async function seedDemoImage(tx: Tx, hole: Hole, adminId: number | null):
     gaps: random() < 0.3 ? random() * 0.35 : 0,
   }))
   for (const c of unpicked) {
-    const depth = c.depth + 0.04
+    const depth = c.depth + offset
     if (depth < top + 0.3 || depth > bottom - 0.3) continue
     traces.push({
       depth,
       // H = D·tan(90° − alpha), trough = beta + 180 (demo-logs.ts demoPicks)
       height: (DIAMETER_MM * Math.tan(((90 - c.alpha!) * Math.PI) / 180)) / 1000,
-      troughAzimuth: (c.beta! + 180) % 360,
+      troughAzimuth: (demoImageBeta(hole.name, c.depth, c.beta!) + 180) % 360,
       contrast: 0.3 + random() * 0.35,
       thickness: 0.005 + random() * 0.006,
       gaps: random() < 0.4 ? random() * 0.4 : 0,

@@ -69,24 +69,44 @@ export function demoLasFile(
 }
 
 /**
+ * How a demo hole's image log sits against its core: the log depth offset (image − core, m) and a
+ * run whose orientation line was drawn wrongly, so the image sees its betas `rotation` degrees
+ * further round than logged. GSQ-BH05 is the hole where reconciliation has something to show.
+ */
+export function demoImageOffset(holeName: string) {
+  return holeName === 'GSQ-BH05'
+    ? { depth: 0.35, wrongRun: { from: 93, to: 96, rotation: 25 } }
+    : { depth: 0.04, wrongRun: null }
+}
+
+/** The beta the image sees for a core structure logged with `beta` at `depth`. */
+export function demoImageBeta(holeName: string, depth: number, beta: number): number {
+  const run = demoImageOffset(holeName).wrongRun
+  return run && depth >= run.from && depth < run.to ? beta + run.rotation : beta
+}
+
+/**
  * Televiewer picks for a demo hole: the oriented core structures seen again on the image log, a few
- * centimetres deeper (log depth vs driller's depth), as high-side sinusoids on a 96 mm hole:
- * H = D·tan(90° − alpha) and trough = beta + 180 (beta from the bottom of hole).
+ * centimetres deeper (log depth vs driller's depth; more in GSQ-BH05), as high-side sinusoids on a
+ * 96 mm hole: H = D·tan(90° − alpha) and trough = beta + 180 (beta from the bottom of hole).
  */
 export function demoPicks(holeName: string, structures: readonly StructureInputT[]) {
   const random = demoRandom(`${holeName}:picks`)
   const diameter = 96
+  const offset = demoImageOffset(holeName).depth
   return structures
     .filter((s) => s.alpha !== undefined && s.beta !== undefined && s.alpha > 3 && random() < 0.8)
     .map((s) => ({
-      depth: Math.round((s.depth + 0.04 + (random() - 0.5) * 0.02) * 1000) / 1000,
+      depth: Math.round((s.depth + offset + (random() - 0.5) * 0.02) * 1000) / 1000,
       type: s.type,
       amplitude:
         Math.round(
           diameter * Math.tan(((90 - s.alpha! + (random() - 0.5) * 3) * Math.PI) / 180) * 10,
         ) / 10,
       diameter,
-      troughAzimuth: Math.round((s.beta! + 180 + (random() - 0.5) * 6 + 360) % 360),
+      troughAzimuth: Math.round(
+        (demoImageBeta(holeName, s.depth, s.beta!) + 180 + (random() - 0.5) * 6 + 360) % 360,
+      ),
       quality: random() < 0.15 ? 'poor' : 'good',
     }))
 }
