@@ -67,6 +67,11 @@ describe('POST H/reconciliation/apply and DELETE H/reconciliation/adjustments/:i
     })
     expect(stranger.status).toBe(400)
     expect(stranger.body.error.details[0].path).toBe('body.runRotations.0.runId')
+    // image structures from 10.4 m up would land above the collar
+    const above = await engineer.post(`${H()}/reconciliation/apply`, { depthShift: 12 })
+    expect(above.status).toBe(400)
+    expect(above.body.error.details[0].path).toBe('body.depthShift')
+    expect(await fx.db.select().from(adjustments)).toEqual([])
   })
 
   it('POST H/reconciliation/apply → 409 where an approved interval holds the turned run; nothing changes', async () => {

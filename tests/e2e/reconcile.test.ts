@@ -74,11 +74,19 @@ describe('core ↔ image reconciliation of GSQ-BH05 in the browser', () => {
   })
 
   it('undoes both adjustments from the history', async () => {
-    for (let k = 0; k < 2; k++) {
-      await page.locator('[data-testid^="adjustment-undo-"]').first().click()
+    const res = await api.get(new URL(`/api${holePath}/reconciliation`, baseUrl).href)
+    const active = (
+      (await res.json()) as { data: { adjustments: { id: number; active: boolean }[] } }
+    ).data.adjustments.filter((a) => a.active)
+    expect(active).toHaveLength(2)
+    for (const { id } of active) {
+      await page.getByTestId(`adjustment-undo-${id}`).click()
       await page.getByTestId('reconcile-undo-confirm').click()
-      await page.getByTestId('reconcile-undo-result').waitFor()
+      await page.getByTestId(`adjustment-${id}`).locator('[data-state="undone"]').waitFor()
     }
+    expect(await page.getByTestId('reconcile-undo-result').innerText()).toMatch(
+      /Undone; \d+ structures recomputed/,
+    )
     await expect
       .poll(async () => (await structuresOf()).filter((s) => (s.betaRotationApplied ?? 0) !== 0))
       .toEqual([])

@@ -112,7 +112,8 @@ async function seedPicks(tx: Tx, project: typeof projects.$inferSelect, demo: De
   const found = await demoHoleRow(tx, demo.name)
   if (!found || found.stations.length === 0) return
   const { structures: core } = demoLogging(demo.name, found.hole.finalDepth, found.stations)
-  const picks = demoPicks(demo.name, core)
+  // a structure near the bottom seen deeper on the log would lie past the hole's end: left out
+  const picks = demoPicks(demo.name, core).filter((p) => p.depth < found.hole.finalDepth)
   for (let i = 0; i < picks.length; i += 500) {
     await tx.insert(structures).values(
       picks.slice(i, i + 500).map((p): StructureInputRow => ({

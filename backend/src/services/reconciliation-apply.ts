@@ -45,12 +45,20 @@ async function moveImageSide(
     .from(structures)
     .where(and(eq(structures.holeId, hole.id), eq(structures.source, 'image')))
   const next = moved.map((s) => ({ path: `structure ${s.id}`, depth: s.depth - delta }))
-  const above = next.find((d) => d.depth < 0)
+  const strips = await tx
+    .select({ id: images.id, top: images.topDepth, bottom: images.bottomDepth })
+    .from(images)
+    .where(eq(images.holeId, hole.id))
+  const ends = strips.flatMap((i) => [
+    { path: `image ${i.id}`, depth: i.top - delta },
+    { path: `image ${i.id}`, depth: i.bottom - delta },
+  ])
+  const above = [...next, ...ends].find((d) => d.depth < 0)
   if (above)
     throw badRequest(`A shift of ${to} m would put ${above.path} above the collar.`, [
       { path: 'body.depthShift', message: `${above.path} would be at ${above.depth} m` },
     ])
-  assertWithinHole(hole, next)
+  assertWithinHole(hole, [...next, ...ends])
   demoted.push(
     ...(await guardWrite(
       tx,
