@@ -90,6 +90,15 @@ pg_cluster_up() {
     # Test clusters only: never for data anyone keeps.
     opts="$opts -c fsync=off -c synchronous_commit=off -c full_page_writes=off"
   fi
+  # A postmaster killed outright can linger as a zombie where nothing reaps it (a container's
+  # PID 1): pg_ctl and the new postmaster would both take its pid file for a live server.
+  if [ -f "$data/postmaster.pid" ]; then
+    local pid; pid="$(head -n 1 "$data/postmaster.pid")"
+    if [ -n "$pid" ] && grep -qs '^State:[[:space:]]*Z' "/proc/$pid/status"; then
+      log "removing the pid file of a dead PostgreSQL ($pid)"
+      rm -f "$data/postmaster.pid" "$data"/.s.PGSQL.*
+    fi
+  fi
   if pg_as_owner "$PG_BIN/pg_ctl" -D "$data" status >/dev/null 2>&1; then
     log "PostgreSQL already running on 127.0.0.1:$port"
   else

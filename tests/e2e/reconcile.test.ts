@@ -63,7 +63,12 @@ describe('core ↔ image reconciliation of GSQ-BH05 in the browser', () => {
     expect(lines).toMatch(/93/)
     await page.getByTestId('reconcile-apply-reason').fill('wireline depth; run 93–96 m mark')
     await page.getByTestId('reconcile-apply-confirm').click()
-    await page.locator('[data-testid^="adjustment-undo-"]').nth(1).waitFor()
+    const refused = page.getByTestId('reconcile-apply-error')
+    await Promise.race([
+      page.locator('[data-testid^="adjustment-undo-"]').nth(1).waitFor(),
+      refused.first().waitFor(),
+    ])
+    expect(await refused.count(), await refused.allInnerTexts().then((t) => t.join(' '))).toBe(0)
     const row = page.getByTestId(`reconcile-run-${badRun}`)
     await row.locator('[data-verdict="ok"]').waitFor()
     const turned = (await structuresOf()).filter(

@@ -27,7 +27,7 @@ const SAME = 1e-9
 /**
  * Moves the hole's image side from one depth shift in force to another: image structures, the
  * images' top and bottom and their picks (centre and clicked points) by −(to − from), so stored =
- * logged − shift. Refused past the collar or the final depth (400) and, where an approved interval
+ * logged − shift. Refused when a structure would pass the collar or the final depth (400) and, where an approved interval
  * holds the old or new depth of a moved structure, 409; checked ones go back to draft.
  */
 async function moveImageSide(
@@ -45,20 +45,14 @@ async function moveImageSide(
     .from(structures)
     .where(and(eq(structures.holeId, hole.id), eq(structures.source, 'image')))
   const next = moved.map((s) => ({ path: `structure ${s.id}`, depth: s.depth - delta }))
-  const strips = await tx
-    .select({ id: images.id, top: images.topDepth, bottom: images.bottomDepth })
-    .from(images)
-    .where(eq(images.holeId, hole.id))
-  const ends = strips.flatMap((i) => [
-    { path: `image ${i.id}`, depth: i.top - delta },
-    { path: `image ${i.id}`, depth: i.bottom - delta },
-  ])
-  const above = [...next, ...ends].find((d) => d.depth < 0)
+  // Image strips themselves may then start above the collar or end past the hole (a strip logged
+  // from 0 m moved up by the shift): the part outside the hole is simply not shown.
+  const above = next.find((d) => d.depth < 0)
   if (above)
     throw badRequest(`A shift of ${to} m would put ${above.path} above the collar.`, [
       { path: 'body.depthShift', message: `${above.path} would be at ${above.depth} m` },
     ])
-  assertWithinHole(hole, [...next, ...ends])
+  assertWithinHole(hole, next)
   demoted.push(
     ...(await guardWrite(
       tx,

@@ -33,10 +33,13 @@ export function withMetrics(run: CoreRun) {
 
 /** The hole's runs with metrics and the orientation-line rotation in force (reconciliation). */
 export async function listRuns(db: Executor, holeId: number) {
-  const [rows, rotations] = await Promise.all([
-    db.select().from(coreRuns).where(eq(coreRuns.holeId, holeId)).orderBy(asc(coreRuns.fromDepth)),
-    runRotations(db, holeId),
-  ])
+  // One after another: a transaction's queries share one connection.
+  const rows = await db
+    .select()
+    .from(coreRuns)
+    .where(eq(coreRuns.holeId, holeId))
+    .orderBy(asc(coreRuns.fromDepth))
+  const rotations = await runRotations(db, holeId)
   return rows.map((r) => ({ ...withMetrics(r), betaRotation: rotations.get(r.id) ?? 0 }))
 }
 

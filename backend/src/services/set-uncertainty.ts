@@ -30,19 +30,18 @@ export async function setSystematicTerms(
   const out = new Map<number, number>()
   const ids = sets.flatMap((s) => s.ids)
   if (ids.length === 0) return out
-  const [[context], stations, rows] = await Promise.all([
-    db
-      .select({ errorModel: projects.errorModel, referenceLine: projects.referenceLine })
-      .from(holes)
-      .innerJoin(projects, eq(projects.id, holes.projectId))
-      .where(eq(holes.id, holeId)),
-    db
-      .select({ depth: surveyStations.depth, method: surveyStations.method })
-      .from(surveyStations)
-      .where(eq(surveyStations.holeId, holeId))
-      .orderBy(asc(surveyStations.depth)),
-    db.select().from(structures).where(inArray(structures.id, ids)),
-  ])
+  // One after another: the analysis may run inside a transaction (one connection).
+  const [context] = await db
+    .select({ errorModel: projects.errorModel, referenceLine: projects.referenceLine })
+    .from(holes)
+    .innerJoin(projects, eq(projects.id, holes.projectId))
+    .where(eq(holes.id, holeId))
+  const stations = await db
+    .select({ depth: surveyStations.depth, method: surveyStations.method })
+    .from(surveyStations)
+    .where(eq(surveyStations.holeId, holeId))
+    .orderBy(asc(surveyStations.depth))
+  const rows = await db.select().from(structures).where(inArray(structures.id, ids))
   if (!context) return out
   const model = errorModelOf(context)
   const byId = new Map(rows.map((r) => [r.id, r]))

@@ -53,30 +53,29 @@ export async function loadComputeContext(
   project: Project,
   hole: Hole,
 ): Promise<ComputeContext> {
-  const [stations, runs, rotations] = await Promise.all([
-    db
-      .select({
-        depth: surveyStations.depth,
-        azimuth: surveyStations.azimuth,
-        plunge: surveyStations.plunge,
-        declinationApplied: surveyStations.declinationApplied,
-        method: surveyStations.method,
-      })
-      .from(surveyStations)
-      .where(eq(surveyStations.holeId, hole.id))
-      .orderBy(asc(surveyStations.depth)),
-    db
-      .select({
-        id: coreRuns.id,
-        fromDepth: coreRuns.fromDepth,
-        toDepth: coreRuns.toDepth,
-        markConfidence: coreRuns.markConfidence,
-      })
-      .from(coreRuns)
-      .where(eq(coreRuns.holeId, hole.id))
-      .orderBy(asc(coreRuns.fromDepth)),
-    runRotations(db, hole.id),
-  ])
+  // One after another: inside a transaction they share one connection anyway.
+  const stations = await db
+    .select({
+      depth: surveyStations.depth,
+      azimuth: surveyStations.azimuth,
+      plunge: surveyStations.plunge,
+      declinationApplied: surveyStations.declinationApplied,
+      method: surveyStations.method,
+    })
+    .from(surveyStations)
+    .where(eq(surveyStations.holeId, hole.id))
+    .orderBy(asc(surveyStations.depth))
+  const runs = await db
+    .select({
+      id: coreRuns.id,
+      fromDepth: coreRuns.fromDepth,
+      toDepth: coreRuns.toDepth,
+      markConfidence: coreRuns.markConfidence,
+    })
+    .from(coreRuns)
+    .where(eq(coreRuns.holeId, hole.id))
+    .orderBy(asc(coreRuns.fromDepth))
+  const rotations = await runRotations(db, hole.id)
   return {
     steepThresholdDeg: project.steepThresholdDeg,
     betaJumpDeg: project.betaJumpDeg,
